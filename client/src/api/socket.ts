@@ -1,0 +1,21 @@
+// The one socket.io connection, opened after sign-in with the session cookie.
+import { io, type Socket } from 'socket.io-client';
+import type { ClientToServerEvents, ServerToClientEvents } from '@shared/events';
+
+export type AppSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
+let socket: AppSocket | null = null;
+
+export function connectSocket(): AppSocket {
+  if (!socket) socket = io({ path: '/socket.io', withCredentials: true, transports: ['websocket', 'polling'] });
+  else if (socket.disconnected) socket.connect();
+  return socket;
+}
+
+export function disconnectSocket() {
+  socket?.disconnect();
+  socket = null;
+}
+
+export function currentSocket(): AppSocket | null {
+  return socket;
+}

@@ -1,0 +1,21 @@
+// The navigation, by side and role. A user sees only what their role may open; the
+// router guard enforces the same rule. Features add their entries.
+import type { RoleKey } from '@shared/roles';
+import type { RouteName, Side } from '@/router/routes';
+
+export interface NavItem {
+  label: string;
+  icon: string;
+  to: RouteName;
+  sides: Side[];
+  roles?: RoleKey[];
+}
+
+export const navItems: NavItem[] = [
+  { label: 'Season overview', icon: 'pi pi-compass', to: 'home', sides: ['farm', 'apiary', 'admin'] },
+];
+
+export function navFor(side: Side | null, role: RoleKey | null): NavItem[] {
+  if (!side || !role) return [];
+  return navItems.filter((item) => item.sides.includes(side) && (!item.roles || item.roles.includes(role)));
+}

@@ -1,0 +1,42 @@
+// `npm test`: the same set-up as start against a fresh, migrated test template database
+// (each test file works in its own copy of it), the client built for the browser tests,
+// Chromium from Debian, then every suite with vitest.
+import { ensureDependencies } from './lib/dependencies.mjs';
+ensureDependencies();
+
+const { spawnSync } = await import('node:child_process');
+const { log } = await import('./lib/log.mjs');
+const { startCluster, stopCluster, clusterUrl, superuserUrl, testTemplateDatabase, repoRoot } = await import('./lib/postgres-cluster.mjs');
+const { ensureAppRole, recreateDatabase } = await import('./lib/databases.mjs');
+const { ensureChromiumInstalled } = await import('./lib/system-packages.mjs');
+const { ensureClientBuilt } = await import('./lib/client-build.mjs');
+const { runTs } = await import('./lib/run-node.mjs');
+
+const started = Date.now();
+const cluster = startCluster();
+let code = 1;
+try {
+  await ensureAppRole();
+  await recreateDatabase(testTemplateDatabase);
+  const templateUrl = clusterUrl(testTemplateDatabase);
+  await runTs('server/src/db/migrate.ts', [], { DATABASE_URL: templateUrl });
+  const chromium = ensureChromiumInstalled();
+  ensureClientBuilt({ force: true });
+  log(`set-up took ${((Date.now() - started) / 1000).toFixed(1)} s; running the suites`);
+  const result = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {
+    cwd: repoRoot,
+    stdio: 'inherit',
+    env: {
+      ...process.env,
+      TEST_TEMPLATE_DATABASE_URL: templateUrl,
+      TEST_ADMIN_DATABASE_URL: superuserUrl(),
+      CHROMIUM_PATH: chromium,
+      PG_BIN_DIR: cluster.bin,
+    },
+  });
+  code = result.status ?? 1;
+} finally {
+  if (cluster.startedHere) stopCluster(cluster);
+}
+log(`npm test finished in ${((Date.now() - started) / 1000).toFixed(1)} s`);
+process.exit(code);

@@ -1,0 +1,14 @@
+// The demo scenario, in order. Each part adds to the world the next ones build on.
+// Features add their part to the list.
+import type { SeedWorld } from './seed-world.js';
+import { seedAccounts } from './parts/accounts.seed.js';
+
+export const seedParts: Array<{ name: string; run: (world: SeedWorld) => Promise<void> }> = [
+  { name: 'accounts', run: seedAccounts },
+];
+
+export async function seedScenario(today: Date): Promise<SeedWorld> {
+  const world = { today, extra: {} } as SeedWorld;
+  for (const part of seedParts) await part.run(world);
+  return world;
+}

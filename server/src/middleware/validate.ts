@@ -1,0 +1,40 @@
+// Parses req.body, req.query and req.params with the shared zod schemas and writes the
+// parsed values back; a failure is a 400 naming every bad field.
+import type { RequestHandler } from 'express';
+import type { ZodType } from 'zod';
+import { z } from 'zod';
+import { createError } from '../errors/create-error.js';
+import type { FieldErrors } from '../../../shared/errors.js';
+
+type Schemas = { body?: ZodType; query?: ZodType; params?: ZodType };
+
+export function fieldErrorsOf(error: z.ZodError, prefix?: string): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const path = [prefix, ...issue.path.map(String)].filter(Boolean).join('.') || prefix || 'body';
+    fields[path] ??= issue.message;
+  }
+  return fields;
+}
+
+export function parseOrThrow<T>(schema: ZodType<T>, value: unknown, prefix?: string): T {
+  const result = schema.safeParse(value);
+  if (!result.success) {
+    const fields = fieldErrorsOf(result.error, prefix);
+    const names = Object.keys(fields).join(', ');
+    throw createError('validation_failed', `Please check: ${names}.`, 400, fields);
+  }
+  return result.data;
+}
+
+export function validate(schemas: Schemas): RequestHandler {
+  return (req, _res, next) => {
+    if (schemas.params) req.params = parseOrThrow(schemas.params, req.params) as typeof req.params;
+    if (schemas.query) {
+      const query = parseOrThrow(schemas.query, req.query);
+      Object.defineProperty(req, 'query', { value: query, writable: true, configurable: true });
+    }
+    if (schemas.body) req.body = parseOrThrow(schemas.body, req.body ?? {});
+    next();
+  };
+}

@@ -1,0 +1,50 @@
+// What every request knows of its signed-in user, loaded from the database per request
+// so a changed role or a removed member takes effect at once.
+import type { MemberRole, OrganizationKind, RoleKey } from '../../../../shared/roles.js';
+import type { SessionUser } from '../../../../shared/schemas/auth.js';
+import type { User } from '../../db/models/user.model.js';
+
+export interface AuthUser {
+  id: string;
+  email: string;
+  name: string;
+  role: MemberRole;
+  roleKey: RoleKey;
+  organizationId: string | null;
+  organizationKind: OrganizationKind | null;
+  organizationName: string | null;
+  organizationTimeZone: string | null;
+  units: 'imperial' | 'metric';
+  timeZone: string | null;
+}
+
+export function toAuthUser(user: User): AuthUser {
+  const org = user.organization ?? null;
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    roleKey: user.role === 'admin' || !org ? 'admin' : (`${org.kind}:${user.role}` as RoleKey),
+    organizationId: org?.id ?? null,
+    organizationKind: org?.kind ?? null,
+    organizationName: org?.name ?? null,
+    organizationTimeZone: org?.timeZone ?? null,
+    units: user.units,
+    timeZone: user.timeZone,
+  };
+}
+
+export function toSessionUser(user: AuthUser): SessionUser {
+  return {
+    id: user.id,
+    email: user.email,
+    name: user.name,
+    role: user.role,
+    units: user.units,
+    timeZone: user.timeZone,
+    organization: user.organizationId
+      ? { id: user.organizationId, name: user.organizationName!, kind: user.organizationKind!, timeZone: user.organizationTimeZone! }
+      : null,
+  };
+}

@@ -1,0 +1,50 @@
+// Debian's Chromium driven by playwright-core (never a downloaded browser). Every page
+// fails its test on a request that leaves 127.0.0.1 and records console errors.
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+import { resolve } from 'node:path';
+
+export const screenshotDir = resolve('test-artifacts/screenshots');
+
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  });
+}
+
+export interface WatchedPage {
+  page: Page;
+  context: BrowserContext;
+  consoleErrors: string[];
+  externalRequests: string[];
+}
+
+export async function openWatchedPage(browser: Browser, options: { width?: number; height?: number; permissions?: string[] } = {}): Promise<WatchedPage> {
+  const context = await browser.newContext({ viewport: { width: options.width ?? 1280, height: options.height ?? 860 }, permissions: options.permissions });
+  const page = await context.newPage();
+  const consoleErrors: string[] = [];
+  const externalRequests: string[] = [];
+  page.on('console', (msg) => { if (msg.type() === 'error') consoleErrors.push(msg.text()); });
+  page.on('pageerror', (err) => consoleErrors.push(err.message));
+  await context.route('**/*', (route) => {
+    const url = new URL(route.request().url());
+    if (['127.0.0.1', 'localhost'].includes(url.hostname) || url.protocol === 'data:' || url.protocol === 'blob:') return route.continue();
+    externalRequests.push(url.toString());
+    return route.abort();
+  });
+  return { page, context, consoleErrors, externalRequests };
+}
+
+export async function signInThroughPage(page: Page, baseUrl: string, email: string, password = 'pollen-demo-2026') {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
+}
+
+export async function saveScreenshot(page: Page, name: string) {
+  mkdirSync(screenshotDir, { recursive: true });
+  await page.screenshot({ path: resolve(screenshotDir, `${name}.png`), fullPage: true });
+}

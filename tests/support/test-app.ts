@@ -1,0 +1,77 @@
+// Boots the real app for a test file: its own database copy, its own SMTP sink, the HTTP
+// server on a free port. Nothing of ours is mocked.
+import { loadConfig, type Config } from '../../server/src/config/env.js';
+import { createApp, type CreatedApp } from '../../server/src/app.js';
+import { startSmtpSink, type SmtpSink } from '../../server/src/fakes/smtp-sink.js';
+import { createTestDatabase } from './test-database.js';
+
+export interface TestApp extends CreatedApp {
+  baseUrl: string;
+  port: number;
+  databaseUrl: string;
+  sink: SmtpSink;
+  config: Config;
+  /** Closes the app and starts it again against the same database (a server restart). */
+  restart(): Promise<TestApp>;
+  /** Closes everything and drops the database. */
+  stop(): Promise<void>;
+}
+
+export interface TestAppOptions {
+  now?: () => Date;
+  config?: Partial<Config>;
+  env?: Record<string, string>;
+}
+
+export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
+  const database = await createTestDatabase();
+  const sink = await startSmtpSink();
+  return boot(database, sink, options);
+}
+
+async function boot(database: { url: string; drop: () => Promise<void> }, sink: SmtpSink, options: TestAppOptions): Promise<TestApp> {
+  const config = loadConfig(
+    {
+      NODE_ENV: 'test',
+      DATABASE_URL: database.url,
+      LOG_LEVEL: 'silent',
+      SMTP_PORT: String(sink.smtpPort),
+      MAIL_SINK_URL: `http://127.0.0.1:${sink.httpPort}`,
+      SERVE_CLIENT: 'true',
+      DATABASE_POOL_MAX: '20',
+      ...options.env,
+    },
+    options.config,
+  );
+  const created = await createApp(config, { now: options.now });
+  const port = await created.listen(0, '127.0.0.1');
+  const testApp: TestApp = {
+    ...created,
+    baseUrl: `http://127.0.0.1:${port}`,
+    port,
+    databaseUrl: database.url,
+    sink,
+    config,
+    async restart() {
+      await created.close();
+      return boot(database, sink, options);
+    },
+    async stop() {
+      await created.close();
+      await sink.stop();
+      await database.drop();
+    },
+  };
+  return testApp;
+}
+
+/** Waits until check() returns a truthy value, polling; fails after timeoutMs. */
+export async function eventually<T>(check: () => Promise<T> | T, timeoutMs = 10_000, intervalMs = 100): Promise<NonNullable<T>> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await check();
+    if (value) return value as NonNullable<T>;
+    if (Date.now() > deadline) throw new Error(`condition not met within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, intervalMs));
+  }
+}
