@@ -21,7 +21,7 @@ export default defineConfig({
     },
   },
   build: {
-    outDir: fileURLToPath(new URL('./dist/client', import.meta.url)),
+    outDir: fileURLToPath(new URL(`./${process.env.POLLENPACT_CLIENT_DIST ?? 'dist/client'}`, import.meta.url)),
     emptyOutDir: true,
     chunkSizeWarningLimit: 900,
   },

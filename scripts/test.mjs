@@ -21,7 +21,8 @@ try {
   const templateUrl = clusterUrl(testTemplateDatabase);
   await runTs('server/src/db/migrate.ts', [], { DATABASE_URL: templateUrl });
   const chromium = ensureChromiumInstalled();
-  ensureClientBuilt({ force: true });
+  const clientDist = process.env.POLLENPACT_CLIENT_DIST ?? 'dist/client';
+  if (process.env.POLLENPACT_SKIP_BUILD !== '1') ensureClientBuilt({ force: true, outDir: clientDist });
   log(`set-up took ${((Date.now() - started) / 1000).toFixed(1)} s; running the suites`);
   const result = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {
     cwd: repoRoot,
@@ -32,6 +33,7 @@ try {
       TEST_ADMIN_DATABASE_URL: superuserUrl(),
       CHROMIUM_PATH: chromium,
       PG_BIN_DIR: cluster.bin,
+      CLIENT_DIST: clientDist,
     },
   });
   code = result.status ?? 1;

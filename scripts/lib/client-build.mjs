@@ -15,13 +15,13 @@ function newestMtime(dir) {
   return newest;
 }
 
-export function ensureClientBuilt({ force = false } = {}) {
-  const builtIndex = resolve(repoRoot, 'dist/client/index.html');
+export function ensureClientBuilt({ force = false, outDir = 'dist/client' } = {}) {
+  const builtIndex = resolve(repoRoot, outDir, 'index.html');
   const sources = ['client', 'shared', 'vite.config.ts', 'package-lock.json'].map((p) => resolve(repoRoot, p));
   const newestSource = Math.max(...sources.map((p) => (statSync(p).isDirectory() ? newestMtime(p) : statSync(p).mtimeMs)));
   if (!force && existsSync(builtIndex) && statSync(builtIndex).mtimeMs >= newestSource) return;
   log('building the client (vite build)');
   execFileSync(process.execPath, [resolve(repoRoot, 'node_modules/vite/bin/vite.js'), 'build', '--logLevel', 'warn'], {
-    cwd: repoRoot, stdio: 'inherit',
+    cwd: repoRoot, stdio: 'inherit', env: { ...process.env, POLLENPACT_CLIENT_DIST: outDir },
   });
 }

@@ -12,7 +12,8 @@ export const repoRoot = resolve(new URL('../..', import.meta.url).pathname);
 export const clusterPort = Number(process.env.POLLENPACT_PG_PORT ?? 54329);
 export const appRole = 'pollenpact';
 export const appDatabase = 'pollenpact';
-export const testTemplateDatabase = 'pollenpact_test';
+// Several test runs may share one cluster (e.g. in development): each names its own template.
+export const testTemplateDatabase = process.env.POLLENPACT_TEST_TEMPLATE ?? 'pollenpact_test';
 
 function postgresUid() {
   const line = execFileSync('id', ['-u', 'postgres']).toString().trim();
@@ -85,7 +86,7 @@ export function startCluster() {
   log(`starting PostgreSQL on 127.0.0.1:${clusterPort}`);
   asClusterOwner(bin, [
     'pg_ctl', '-D', dir, '-l', resolve(dir, 'server.log'), '-w', '-t', '60',
-    '-o', `-p ${clusterPort} -k /tmp -c listen_addresses=127.0.0.1 -c max_connections=300 -c fsync=off`,
+    '-o', `-p ${clusterPort} -k /tmp -c listen_addresses=127.0.0.1 -c max_connections=1000 -c shared_buffers=256MB`,
     'start',
   ]);
   return { bin, dir, startedHere: true };

@@ -38,6 +38,7 @@ async function boot(database: { url: string; drop: () => Promise<void> }, sink: 
       SMTP_PORT: String(sink.smtpPort),
       MAIL_SINK_URL: `http://127.0.0.1:${sink.httpPort}`,
       SERVE_CLIENT: 'true',
+      CLIENT_DIST: process.env.CLIENT_DIST ?? 'dist/client',
       DATABASE_POOL_MAX: '20',
       ...options.env,
     },
