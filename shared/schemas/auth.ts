@@ -45,3 +45,12 @@ export interface SessionUser {
   timeZone: string | null;
   organization: SessionOrganization | null;
 }
+
+/** A token from an e-mailed link (invitation or password reset). */
+export const emailedTokenSchema = z.string().trim().min(20, 'is missing or incomplete; open the link from the e-mail again').max(200, 'is not a valid link token');
+
+export const passwordResetRequestBody = z.object({ email: emailSchema });
+export type PasswordResetRequestBody = z.infer<typeof passwordResetRequestBody>;
+
+export const passwordResetConfirmBody = z.object({ token: emailedTokenSchema, password: passwordSchema });
+export type PasswordResetConfirmBody = z.infer<typeof passwordResetConfirmBody>;

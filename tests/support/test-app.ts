@@ -3,6 +3,7 @@
 import { loadConfig, type Config } from '../../server/src/config/env.js';
 import { createApp, type CreatedApp } from '../../server/src/app.js';
 import { startSmtpSink, type SmtpSink } from '../../server/src/fakes/smtp-sink.js';
+import { startPaymentsStandIn, type PaymentsStandIn } from '../../server/src/fakes/payments-stand-in.js';
 import { createTestDatabase } from './test-database.js';
 
 export interface TestApp extends CreatedApp {
@@ -10,6 +11,8 @@ export interface TestApp extends CreatedApp {
   port: number;
   databaseUrl: string;
   sink: SmtpSink;
+  /** The payments stand-in; its webhooks go to this app. */
+  payments: PaymentsStandIn;
   config: Config;
   /** Closes the app and starts it again against the same database (a server restart). */
   restart(): Promise<TestApp>;
@@ -26,10 +29,11 @@ export interface TestAppOptions {
 export async function startTestApp(options: TestAppOptions = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const sink = await startSmtpSink();
-  return boot(database, sink, options);
+  const payments = await startPaymentsStandIn(loadConfig({ ...options.env }).payments);
+  return boot(database, sink, payments, options);
 }
 
-async function boot(database: { url: string; drop: () => Promise<void> }, sink: SmtpSink, options: TestAppOptions): Promise<TestApp> {
+async function boot(database: { url: string; drop: () => Promise<void> }, sink: SmtpSink, payments: PaymentsStandIn, options: TestAppOptions): Promise<TestApp> {
   const config = loadConfig(
     {
       NODE_ENV: 'test',
@@ -40,26 +44,30 @@ async function boot(database: { url: string; drop: () => Promise<void> }, sink: 
       SERVE_CLIENT: 'true',
       CLIENT_DIST: process.env.CLIENT_DIST ?? 'dist/client',
       DATABASE_POOL_MAX: '20',
+      PAYMENTS_API_URL: payments.url,
       ...options.env,
     },
     options.config,
   );
   const created = await createApp(config, { now: options.now });
   const port = await created.listen(0, '127.0.0.1');
+  payments.setWebhookUrl(`http://127.0.0.1:${port}/api/webhooks/payments`);
   const testApp: TestApp = {
     ...created,
     baseUrl: `http://127.0.0.1:${port}`,
     port,
     databaseUrl: database.url,
     sink,
+    payments,
     config,
     async restart() {
       await created.close();
-      return boot(database, sink, options);
+      return boot(database, sink, payments, options);
     },
     async stop() {
       await created.close();
       await sink.stop();
+      await payments.stop();
       await database.drop();
     },
   };

@@ -27,6 +27,8 @@ const envSchema = z.object({
   PAYMENTS_SECRET_KEY: z.string().default('sk_test_pollenpact_local'),
   PAYMENTS_WEBHOOK_SECRET: z.string().default('whsec_pollenpact_local'),
   MAP_TILE_URL: z.string().default(''),
+  MAP_ATTRIBUTION: z.string().default(''),
+  BLOOM_DIGEST_DELAY_SECONDS: z.coerce.number().int().min(0).max(86_400).default(900),
   UPLOAD_DIR: z.string().default('.data/uploads'),
   LOGIN_RATE_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(10),
   LOGIN_RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(50),
@@ -51,6 +53,9 @@ export interface Config {
   mail: { host: string; port: number; from: string; sinkUrl: string };
   payments: { apiUrl: string; secretKey: string; webhookSecret: string };
   mapTileUrl: string;
+  mapAttribution: string;
+  /** How long bloom-window revisions are gathered before an apiary's e-mail digest goes out. */
+  bloomDigestDelaySeconds: number;
   uploadDir: string;
   loginRateLimit: { perAccount: number; perAddress: number };
   jobsEnabled: boolean;
@@ -85,6 +90,8 @@ export function loadConfig(source: Record<string, string | undefined> = process.
     mail: { host: e.SMTP_HOST, port: e.SMTP_PORT, from: e.MAIL_FROM, sinkUrl: e.MAIL_SINK_URL },
     payments: { apiUrl: e.PAYMENTS_API_URL, secretKey: e.PAYMENTS_SECRET_KEY, webhookSecret: e.PAYMENTS_WEBHOOK_SECRET },
     mapTileUrl: e.MAP_TILE_URL,
+    mapAttribution: e.MAP_ATTRIBUTION,
+    bloomDigestDelaySeconds: e.BLOOM_DIGEST_DELAY_SECONDS,
     uploadDir: e.UPLOAD_DIR,
     loginRateLimit: { perAccount: e.LOGIN_RATE_LIMIT_PER_ACCOUNT, perAddress: e.LOGIN_RATE_LIMIT_PER_ADDRESS },
     jobsEnabled: e.JOBS_ENABLED,

@@ -1,6 +1,8 @@
 // Queue names, in one place.
 export const queueNames = {
   sendEmail: 'email-send',
+  invoiceReminders: 'invoice-overdue-reminders',
+  bloomDigest: 'bloom-digest',
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

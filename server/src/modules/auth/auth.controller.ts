@@ -1,5 +1,5 @@
-// Sign-in, sign-out, the current user and CSRF tokens. Thin: the rules live in passport
-// and auth.service.
+// Sign-in, sign-out, the current user, CSRF tokens and password reset. Thin: the rules
+// live in passport, auth.service and password-reset.service.
 import type { Request, Response, NextFunction, RequestHandler } from 'express';
 
 import { createError } from '../../errors/create-error.js';
@@ -7,6 +7,7 @@ import { toSessionUser, type AuthUser } from './auth-user.js';
 import type { Csrf } from './csrf.js';
 import type { AppPassport as Passport } from './passport.js';
 import type { AuthService } from './auth.service.js';
+import type { PasswordResetService } from './password-reset.service.js';
 import { currentUser } from '../../middleware/authenticate.js';
 
 const badCredentials = () => createError('unauthenticated', 'That e-mail and password do not match an account.', 401);
@@ -15,18 +16,20 @@ function logIn(req: Request, user: AuthUser): Promise<void> {
   return new Promise((resolve, reject) => req.logIn(user, (err) => (err ? reject(err) : resolve())));
 }
 
-export function createAuthController(passport: Passport, csrf: Csrf, service: AuthService) {
-  const signIn = async (req: Request, res: Response, user: AuthUser, status = 200) => {
-    await logIn(req, user);
-    req.session.createdAt = Date.now();
-    res.status(status).json({ user: toSessionUser(user), csrfToken: csrf.issue(req, res) });
-  };
+/** Signs the user in on a fresh session id (passport regenerates it) and answers with the user and a new CSRF token. */
+export async function signIn(req: Request, res: Response, csrf: Csrf, user: AuthUser, status = 200) {
+  await logIn(req, user);
+  req.session.createdAt = Date.now();
+  res.status(status).json({ user: toSessionUser(user), csrfToken: csrf.issue(req, res) });
+}
+
+export function createAuthController(passport: Passport, csrf: Csrf, service: AuthService, passwordReset: PasswordResetService) {
 
   const login: RequestHandler = (req, res, next: NextFunction) => {
     passport.authenticate('local', { session: false }, (err: unknown, user: AuthUser | false) => {
       if (err) return next(err);
       if (!user) return next(badCredentials());
-      signIn(req, res, user).catch(next);
+      signIn(req, res, csrf, user).catch(next);
     })(req, res, next);
   };
 
@@ -34,7 +37,7 @@ export function createAuthController(passport: Passport, csrf: Csrf, service: Au
     login,
     async signup(req: Request, res: Response) {
       const user = await service.signup(req.body);
-      await signIn(req, res, user, 201);
+      await signIn(req, res, csrf, user, 201);
     },
     logout(req: Request, res: Response, next: NextFunction) {
       req.logout((err) => {
@@ -54,6 +57,15 @@ export function createAuthController(passport: Passport, csrf: Csrf, service: Au
     async updatePreferences(req: Request, res: Response) {
       const user = await service.updatePreferences(currentUser(req), req.body);
       res.json({ user: toSessionUser(user) });
+    },
+    /** Always 202: the answer does not reveal whether the e-mail has an account. */
+    async requestPasswordReset(req: Request, res: Response) {
+      await passwordReset.request(req.body);
+      res.status(202).json({ ok: true });
+    },
+    async confirmPasswordReset(req: Request, res: Response) {
+      await passwordReset.confirm(req.body);
+      res.json({ ok: true });
     },
   };
 }

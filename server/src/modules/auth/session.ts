@@ -35,7 +35,11 @@ export function absoluteSessionExpiry(config: Config, now: () => Date): RequestH
     if (!req.session) return next();
     const started = req.session.createdAt;
     if (started && now().getTime() - started > limitMs) {
-      return req.session.regenerate((err) => next(err));
+      // passport has already put the user on the request: take it off with the session.
+      return req.session.regenerate((err) => {
+        req.user = undefined;
+        next(err);
+      });
     }
     if (!started && req.session.passport) req.session.createdAt = now().getTime();
     next();

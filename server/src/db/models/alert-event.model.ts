@@ -1,0 +1,32 @@
+// One step in an alert's history: raised, updated, seen, answered, resolved, reopened.
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { AlertAction } from '../../../../shared/schemas/alerts.js';
+
+export class AlertEvent extends Model<InferAttributes<AlertEvent>, InferCreationAttributes<AlertEvent>> {
+  declare id: CreationOptional<string>;
+  declare alertId: string;
+  declare action: AlertAction;
+  declare actorId: string | null;
+  declare organizationId: string | null;
+  declare response: string | null;
+  declare note: string | null;
+  declare detail: CreationOptional<Record<string, unknown>>;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export function initAlertEvent(sequelize: Sequelize) {
+  AlertEvent.init(
+    {
+      id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
+      alertId: { type: DataTypes.UUID, allowNull: false },
+      action: { type: DataTypes.TEXT, allowNull: false },
+      actorId: { type: DataTypes.UUID, allowNull: true },
+      organizationId: { type: DataTypes.UUID, allowNull: true },
+      response: { type: DataTypes.TEXT, allowNull: true },
+      note: { type: DataTypes.TEXT, allowNull: true },
+      detail: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      createdAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'alert_events', updatedAt: false },
+  );
+}

@@ -1,0 +1,21 @@
+// When an organization first saw an alert (drives the bell's count).
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export class AlertView extends Model<InferAttributes<AlertView>, InferCreationAttributes<AlertView>> {
+  declare alertId: string;
+  declare organizationId: string;
+  declare seenBy: string | null;
+  declare seenAt: Date;
+}
+
+export function initAlertView(sequelize: Sequelize) {
+  AlertView.init(
+    {
+      alertId: { type: DataTypes.UUID, primaryKey: true },
+      organizationId: { type: DataTypes.UUID, primaryKey: true },
+      seenBy: { type: DataTypes.UUID, allowNull: true },
+      seenAt: { type: DataTypes.DATE, allowNull: false },
+    },
+    { sequelize, tableName: 'alert_views', timestamps: false },
+  );
+}

@@ -1,0 +1,17 @@
+// Up to when an apiary's e-mail digest of bloom-window revisions has reported.
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export class BloomDigestMark extends Model<InferAttributes<BloomDigestMark>, InferCreationAttributes<BloomDigestMark>> {
+  declare apiaryId: string;
+  declare reportedThrough: Date;
+}
+
+export function initBloomDigestMark(sequelize: Sequelize) {
+  BloomDigestMark.init(
+    {
+      apiaryId: { type: DataTypes.UUID, primaryKey: true },
+      reportedThrough: { type: DataTypes.DATE, allowNull: false },
+    },
+    { sequelize, tableName: 'bloom_digest_marks', underscored: true, timestamps: false },
+  );
+}

@@ -1,0 +1,31 @@
+// One revision of a block's published bloom window; every revision is kept.
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+export class BloomWindow extends Model<InferAttributes<BloomWindow>, InferCreationAttributes<BloomWindow>> {
+  declare id: CreationOptional<string>;
+  declare blockId: string;
+  declare season: number;
+  declare bloomStart: string;
+  declare fullBloom: string | null;
+  declare petalFall: string;
+  declare confidenceNote: string | null;
+  declare revisedBy: string | null;
+  declare createdAt: CreationOptional<Date>;
+}
+
+export function initBloomWindow(sequelize: Sequelize) {
+  BloomWindow.init(
+    {
+      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+      blockId: { type: DataTypes.UUID, allowNull: false },
+      season: { type: DataTypes.INTEGER, allowNull: false },
+      bloomStart: { type: DataTypes.DATEONLY, allowNull: false },
+      fullBloom: { type: DataTypes.DATEONLY, allowNull: true },
+      petalFall: { type: DataTypes.DATEONLY, allowNull: false },
+      confidenceNote: { type: DataTypes.TEXT, allowNull: true },
+      revisedBy: { type: DataTypes.UUID, allowNull: true },
+      createdAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'bloom_windows', underscored: true, updatedAt: false },
+  );
+}

@@ -1,0 +1,122 @@
+// The conflict search in PostgreSQL: colonies placed or expected on the sprayed blocks or
+// at drop sites within the farm's buffer (ST_DWithin on geography, GiST), on site during
+// the spray window extended by the residual time (tstzrange &&, GiST), and whether the
+// sprayed blocks bloom in that window.
+import { QueryTypes, type Sequelize } from 'sequelize';
+
+export interface SearchScope {
+  farmId: string;
+  blockIds: string[];
+  /** The spray itself. */
+  from: Date;
+  to: Date;
+  /** End of the spray extended by the residual hours. */
+  exposureTo: Date;
+  bufferM: number;
+}
+
+/** Colonies at one drop site under one agreement, placed or expected. */
+export interface ExposureRow {
+  drop_site_id: string;
+  drop_site_name: string;
+  block_name: string;
+  lon: number;
+  lat: number;
+  distance_m: number;
+  on_sprayed_block: boolean;
+  agreement_id: string;
+  agreement_state: string;
+  apiary_id: string;
+  apiary_name: string;
+  notice_hours: number;
+  colonies: number;
+  placed: boolean;
+  during_spray: boolean;
+}
+
+export interface SprayedBlockRow {
+  id: string;
+  name: string;
+  outline: string | null;
+  lon: number;
+  lat: number;
+}
+
+const sprayedCte = `
+  sprayed AS (
+    SELECT b.id, b.name, coalesce(b.outline, b.location) AS geom
+    FROM blocks b WHERE b.id = ANY(CAST(:blockIds AS uuid[])) AND b.farm_id = :farmId
+  )`;
+
+const exposureSql = `
+  WITH ${sprayedCte},
+  near_sites AS (
+    SELECT DISTINCT ON (d.id) d.id, d.request_id, d.name, d.block_id, d.colonies_planned, d.location,
+      ST_Distance(d.location::geography, s.geom::geography) AS distance_m
+    FROM sprayed s JOIN drop_sites d ON ST_DWithin(d.location::geography, s.geom::geography, :bufferM)
+    ORDER BY d.id, ST_Distance(d.location::geography, s.geom::geography)
+  ),
+  found AS (
+    SELECT n.id AS drop_site_id, a.id AS agreement_id, a.state AS agreement_state, a.apiary_id, a.notice_hours,
+      coalesce(p.colonies_delivered, p.colonies_planned) AS colonies, p.state <> 'scheduled' AS placed,
+      p.on_site && tstzrange(:from, :to, '[)') AS during_spray
+    FROM near_sites n
+    JOIN placements p ON p.drop_site_id = n.id AND p.on_site && tstzrange(:from, :exposureTo, '[)')
+    JOIN agreements a ON a.id = p.agreement_id
+    WHERE p.state <> 'scheduled' OR a.state IN ('awaiting-signatures', 'in-force')
+    UNION ALL
+    -- Agreed but not yet scheduled: the agreement's window at its request's drop sites.
+    SELECT n.id, a.id, a.state, a.apiary_id, a.notice_hours, least(a.colonies, n.colonies_planned), false,
+      a.expected_on_site && tstzrange(:from, :to, '[)')
+    FROM near_sites n
+    JOIN agreements a ON a.request_id = n.request_id AND a.state IN ('awaiting-signatures', 'in-force')
+      AND a.expected_on_site && tstzrange(:from, :exposureTo, '[)')
+    WHERE NOT EXISTS (SELECT 1 FROM placements p WHERE p.agreement_id = a.id)
+  )
+  SELECT f.drop_site_id, n.name AS drop_site_name, b.name AS block_name, ST_X(n.location) AS lon, ST_Y(n.location) AS lat,
+    n.distance_m, (n.block_id IN (SELECT id FROM sprayed)) AS on_sprayed_block,
+    f.agreement_id, f.agreement_state, f.apiary_id, o.name AS apiary_name, f.notice_hours, f.colonies, f.placed, f.during_spray
+  FROM found f
+  JOIN near_sites n ON n.id = f.drop_site_id
+  JOIN blocks b ON b.id = n.block_id
+  JOIN organizations o ON o.id = f.apiary_id
+  ORDER BY o.name, n.distance_m`;
+
+const bloomSql = `
+  SELECT EXISTS (
+    SELECT 1 FROM current_bloom_windows w
+    JOIN blocks b ON b.id = w.block_id
+    JOIN organizations o ON o.id = b.farm_id
+    WHERE w.block_id = ANY(CAST(:blockIds AS uuid[])) AND b.farm_id = :farmId
+      AND tstzrange((w.bloom_start::timestamp AT TIME ZONE o.time_zone), ((w.petal_fall + 1)::timestamp AT TIME ZONE o.time_zone), '[)')
+          && tstzrange(:from, :exposureTo, '[)')
+  ) AS during_bloom`;
+
+const blocksSql = `
+  WITH ${sprayedCte}
+  SELECT id, name, ST_AsGeoJSON(geom) AS outline, ST_X(ST_Centroid(geom)) AS lon, ST_Y(ST_Centroid(geom)) AS lat FROM sprayed ORDER BY name`;
+
+function replacements(scope: SearchScope) {
+  return {
+    farmId: scope.farmId,
+    blockIds: `{${scope.blockIds.join(',')}}`,
+    from: scope.from.toISOString(),
+    to: scope.to.toISOString(),
+    exposureTo: scope.exposureTo.toISOString(),
+    bufferM: scope.bufferM,
+  };
+}
+
+export async function sprayedBlocks(sequelize: Sequelize, farmId: string, blockIds: string[]): Promise<SprayedBlockRow[]> {
+  return sequelize.query<SprayedBlockRow>(blocksSql, { replacements: { farmId, blockIds: `{${blockIds.join(',')}}` }, type: QueryTypes.SELECT });
+}
+
+export async function searchExposures(sequelize: Sequelize, scope: SearchScope): Promise<ExposureRow[]> {
+  const rows = await sequelize.query<ExposureRow>(exposureSql, { replacements: replacements(scope), type: QueryTypes.SELECT });
+  return rows.map((r) => ({ ...r, distance_m: Number(r.distance_m), colonies: Number(r.colonies), notice_hours: Number(r.notice_hours) }));
+}
+
+export async function searchBloom(sequelize: Sequelize, scope: SearchScope): Promise<boolean> {
+  const [row] = await sequelize.query<{ during_bloom: boolean }>(bloomSql, { replacements: replacements(scope), type: QueryTypes.SELECT });
+  return Boolean(row?.during_bloom);
+}

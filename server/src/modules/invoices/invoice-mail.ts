@@ -1,0 +1,39 @@
+// E-mail to the farm's billing contact (its billing address, else its owner) through the
+// job queue, with the invoice PDF attached.
+import { QueryTypes } from 'sequelize';
+import type { AppContext } from '../../context.js';
+import type { InvoiceDto } from '../../../../shared/schemas/invoices.js';
+import { enqueueEmail } from '../../jobs/send-email.job.js';
+import { formatMoney } from '../../../../shared/domain/money.js';
+import { renderInvoicePdf } from './invoice-pdf.js';
+
+export async function billingContactOf(ctx: AppContext, farmId: string): Promise<string | null> {
+  const [row] = await ctx.sequelize.query<{ email: string | null }>(
+    `SELECT coalesce(o.billing_email,
+       (SELECT u.email FROM users u WHERE u.organization_id = o.id AND u.role = 'owner' AND u.disabled_at IS NULL ORDER BY u.created_at LIMIT 1)) AS email
+     FROM organizations o WHERE o.id = :farmId`,
+    { replacements: { farmId }, type: QueryTypes.SELECT },
+  );
+  return row?.email ?? null;
+}
+
+export async function sendInvoiceEmail(ctx: AppContext, invoice: InvoiceDto) {
+  const to = await billingContactOf(ctx, invoice.farm.id);
+  if (!to) {
+    ctx.logger.warn({ invoiceId: invoice.id }, 'invoice issued to a farm with no billing contact; no e-mail sent');
+    return;
+  }
+  const pdf = await renderInvoicePdf(invoice);
+  const money = (c: number) => formatMoney(c, invoice.currency);
+  await enqueueEmail(ctx.jobs, {
+    to,
+    subject: `Invoice ${invoice.number} from ${invoice.apiary.name}`,
+    text: [
+      `${invoice.apiary.name} has issued invoice ${invoice.number} for pollination in ${invoice.season}.`,
+      `Total: ${money(invoice.totalCents)}. Deposit ${money(invoice.depositCents)} due ${invoice.depositDueOn ?? 'at delivery'};`
+        + ` balance due ${invoice.balanceDueOn ?? 'after pickup, as agreed'}.`,
+      'Sign in to Pollenpact to pay online or to see the details. The invoice is attached as a PDF.',
+    ].join('\n\n'),
+    attachments: [{ filename: `${invoice.number}.pdf`, contentType: 'application/pdf', contentBase64: pdf.toString('base64') }],
+  });
+}

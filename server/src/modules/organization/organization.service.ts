@@ -1,0 +1,153 @@
+// Members and invitations of the signed-in user's organization. Every query is scoped to
+// that organization: another organization's member or invitation answers 404. An
+// organization always keeps at least one owner. A removed member is disabled (so the
+// history they wrote keeps its author) and their sessions end at once.
+import { Op, type Transaction } from 'sequelize';
+import type { AppContext } from '../../context.js';
+import { Invitation } from '../../db/models/invitation.model.js';
+import { Organization } from '../../db/models/organization.model.js';
+import { User } from '../../db/models/user.model.js';
+import { badRequest, conflict, notFound } from '../../errors/http-errors.js';
+import { enqueueEmail } from '../../jobs/send-email.job.js';
+import { endSessionsOf } from '../auth/end-sessions.js';
+import { emailedLink, newEmailedToken } from '../auth/emailed-tokens.js';
+import type { AuthUser } from '../auth/auth-user.js';
+import { roleLabels, rolesForKind } from '../../../../shared/roles.js';
+import type { InvitationDto, InviteBody, MemberDto, MemberRoleValue, RoleChangeBody } from '../../../../shared/schemas/organization.js';
+
+export const invitationLifetimeMs = 7 * 24 * 3_600_000;
+
+const memberNotFound = () => notFound('That member');
+const invitationNotFound = () => notFound('That invitation');
+
+export function toMemberDto(user: User): MemberDto {
+  return { id: user.id, email: user.email, name: user.name, role: user.role as MemberRoleValue, joinedAt: user.createdAt.toISOString() };
+}
+
+export function toInvitationDto(invitation: Invitation, invitedByName: string | null): InvitationDto {
+  return {
+    id: invitation.id,
+    email: invitation.email,
+    role: invitation.role,
+    invitedByName,
+    expiresAt: invitation.expiresAt.toISOString(),
+    createdAt: invitation.createdAt.toISOString(),
+  };
+}
+
+function organizationOf(user: AuthUser): { id: string; kind: 'farm' | 'apiary'; name: string } {
+  // The policy table admits only organization members, so these are always set here.
+  return { id: user.organizationId!, kind: user.organizationKind!, name: user.organizationName! };
+}
+
+function assertRoleFitsKind(role: MemberRoleValue, kind: 'farm' | 'apiary') {
+  const allowed = rolesForKind(kind);
+  if (!allowed.includes(role)) {
+    throw badRequest(`A ${kind === 'farm' ? 'farm' : 'apiary business'} has no role "${role}".`, { role: `must be one of ${allowed.join(', ')}` });
+  }
+}
+
+/** Locks the organization row so two owners changing roles at once cannot leave it without an owner. */
+async function assertAnotherOwnerRemains(organizationId: string, member: User, transaction: Transaction) {
+  if (member.role !== 'owner') return;
+  await Organization.findByPk(organizationId, { transaction, lock: transaction.LOCK.UPDATE });
+  const owners = await User.count({ where: { organizationId, role: 'owner', disabledAt: null }, transaction });
+  if (owners <= 1) throw conflict('An organization needs at least one owner: make another member an owner first.', { role: 'the last owner cannot give up the role' });
+}
+
+export function createOrganizationService(ctx: AppContext) {
+  const openInvitation = (organizationId: string) => ({
+    organizationId,
+    acceptedAt: { [Op.is]: null },
+    revokedAt: { [Op.is]: null },
+    expiresAt: { [Op.gt]: ctx.now() },
+  });
+
+  async function findMember(user: AuthUser, memberId: string, transaction?: Transaction) {
+    const member = await User.findOne({ where: { id: memberId, organizationId: organizationOf(user).id, disabledAt: null }, transaction, lock: transaction?.LOCK.UPDATE });
+    if (!member) throw memberNotFound();
+    return member;
+  }
+
+  return {
+    async listMembers(user: AuthUser): Promise<MemberDto[]> {
+      const members = await User.findAll({ where: { organizationId: organizationOf(user).id, disabledAt: null }, order: [['name', 'ASC'], ['email', 'ASC']] });
+      return members.map(toMemberDto);
+    },
+
+    async changeRole(user: AuthUser, memberId: string, { role }: RoleChangeBody): Promise<MemberDto> {
+      const org = organizationOf(user);
+      return ctx.sequelize.transaction(async (transaction) => {
+        const member = await findMember(user, memberId, transaction);
+        assertRoleFitsKind(role, org.kind);
+        if (member.role === role) return toMemberDto(member);
+        if (role !== 'owner') await assertAnotherOwnerRemains(org.id, member, transaction);
+        await member.update({ role }, { transaction });
+        return toMemberDto(member);
+      });
+    },
+
+    async removeMember(user: AuthUser, memberId: string): Promise<void> {
+      const org = organizationOf(user);
+      const removedId = await ctx.sequelize.transaction(async (transaction) => {
+        const member = await findMember(user, memberId, transaction);
+        await assertAnotherOwnerRemains(org.id, member, transaction);
+        await member.update({ disabledAt: ctx.now() }, { transaction });
+        return member.id;
+      });
+      await endSessionsOf(ctx, removedId);
+    },
+
+    async listInvitations(user: AuthUser): Promise<InvitationDto[]> {
+      const invitations = await Invitation.findAll({ where: openInvitation(organizationOf(user).id), order: [['createdAt', 'DESC']] });
+      const inviterIds = [...new Set(invitations.map((i) => i.invitedBy).filter((id): id is string => Boolean(id)))];
+      const inviters = new Map((await User.findAll({ where: { id: inviterIds } })).map((u) => [u.id, u.name]));
+      return invitations.map((i) => toInvitationDto(i, i.invitedBy ? (inviters.get(i.invitedBy) ?? null) : null));
+    },
+
+    /** Inviting an address again replaces its open invitation (and sends a new link). */
+    async invite(user: AuthUser, { email, role }: InviteBody): Promise<InvitationDto> {
+      const org = organizationOf(user);
+      assertRoleFitsKind(role, org.kind);
+      const existing = await User.findOne({ where: { email, disabledAt: null } });
+      if (existing) {
+        throw conflict(
+          existing.organizationId === org.id ? 'That person is already a member.' : 'That e-mail already has a Pollenpact account with another organization.',
+          { email: existing.organizationId === org.id ? 'is already a member' : 'already belongs to another organization' },
+        );
+      }
+      const { token, tokenHash } = newEmailedToken();
+      const invitation = await ctx.sequelize.transaction(async (transaction) => {
+        await Invitation.update(
+          { revokedAt: ctx.now() },
+          { where: { organizationId: org.id, email, acceptedAt: { [Op.is]: null }, revokedAt: { [Op.is]: null } }, transaction },
+        );
+        return Invitation.create(
+          { organizationId: org.id, email, role, invitedBy: user.id, tokenHash, expiresAt: new Date(ctx.now().getTime() + invitationLifetimeMs), acceptedAt: null, revokedAt: null },
+          { transaction },
+        );
+      });
+      const link = emailedLink(ctx.config.publicUrl, 'invitation', token);
+      await enqueueEmail(ctx.jobs, {
+        to: email,
+        subject: `${user.name} invited you to ${org.name} on Pollenpact`,
+        text: [
+          'Hello,',
+          '',
+          `${user.name} invited you to join ${org.name} on Pollenpact as ${roleLabels[role]}.`,
+          `Set your password and sign in here: ${link}`,
+          '',
+          'The link works once and expires in 7 days. If you did not expect this, ignore this e-mail.',
+        ].join('\n'),
+      });
+      return toInvitationDto(invitation, user.name);
+    },
+
+    async revokeInvitation(user: AuthUser, invitationId: string): Promise<void> {
+      const [revoked] = await Invitation.update({ revokedAt: ctx.now() }, { where: { id: invitationId, ...openInvitation(organizationOf(user).id) } });
+      if (revoked !== 1) throw invitationNotFound();
+    },
+  };
+}
+
+export type OrganizationService = ReturnType<typeof createOrganizationService>;

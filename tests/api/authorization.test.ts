@@ -1,0 +1,112 @@
+// The table-driven authorization test: every row in tests/api/authz/*.rows.ts is sent by
+// every caller (each role of a farm and an apiary business, the admin, the owner of
+// another farm and of another apiary business, and nobody signed in), and each must get
+// exactly the status the row names. Rows naming a policy action must agree with the
+// policy table, and every action of every policy table must have a row.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { readdirSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import { startTestApp, type TestApp } from '../support/test-app.js';
+import { apiClient, signedInClient, type ApiClient } from '../support/api-client.js';
+import { buildRoleCast } from '../support/builders/accounts.js';
+import { policyTables } from '../../server/src/modules/policies.js';
+import { isAllowed } from '../../server/src/middleware/authenticate.js';
+import { allRoleKeys } from '../../shared/roles.js';
+import { callers, type AuthzRow, type AuthzRowFile, type AuthzWorld, type Caller, type RowContext } from './authz/authz-row.js';
+
+const rowsDir = resolve('tests/api/authz');
+const rowFiles = await Promise.all(
+  readdirSync(rowsDir)
+    .filter((file) => file.endsWith('.rows.ts'))
+    .sort()
+    .map(async (file) => ({ file, module: (await import(pathToFileURL(join(rowsDir, file)).href)) as AuthzRowFile })),
+);
+const allRows = rowFiles.flatMap(({ module }) => module.rows);
+
+describe('authorization table', () => {
+  let t: TestApp;
+  let world: AuthzWorld;
+  const clients = new Map<Caller, ApiClient>();
+  const fixturesByFile = new Map<string, unknown>();
+
+  const newClientFor = async (caller: Caller) => {
+    const user = world.userOf(caller);
+    return user ? signedInClient(t.app, user.email) : apiClient(t.app);
+  };
+
+  beforeAll(async () => {
+    // Every caller signs in, some rows sign in again: keep the sign-in limits out of the way here.
+    t = await startTestApp({ config: { loginRateLimit: { perAccount: 10_000, perAddress: 10_000 } } });
+    const own = await buildRoleCast('own');
+    const other = await buildRoleCast('other');
+    world = {
+      own,
+      other,
+      userOf(caller) {
+        if (caller === 'signed-out') return null;
+        if (caller === 'other-farm') return other.members['farm:owner'];
+        if (caller === 'other-apiary') return other.members['apiary:owner'];
+        return own.members[caller];
+      },
+    };
+    for (const caller of callers) clients.set(caller, await newClientFor(caller));
+    for (const { file, module } of rowFiles) fixturesByFile.set(file, module.setup ? await module.setup(world) : undefined);
+  });
+  afterAll(async () => { await t?.stop(); });
+
+  async function send(row: AuthzRow<unknown>, caller: Caller, fixtures: unknown) {
+    const base = { world, fixtures, caller };
+    const ctx: RowContext<unknown> = { ...base, fresh: row.fresh ? await row.fresh(base) : {} };
+    const client = row.ownClient ? await newClientFor(caller) : clients.get(caller)!;
+    const path = typeof row.path === 'function' ? row.path(ctx) : row.path;
+    const body = typeof row.body === 'function' ? row.body(ctx) : row.body;
+    const method = row.method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';
+    const res = method === 'get' || method === 'delete' ? await client[method](path) : await client[method](path, body ?? {});
+    // As the browser client does: a new CSRF token in an answer replaces the old one.
+    if (typeof res.body?.csrfToken === 'string') client.csrfToken = res.body.csrfToken;
+    return { status: res.status, unknownRoute: String(res.body?.error?.message ?? '').startsWith('No such API route') };
+  }
+
+  it('finds row files', () => {
+    expect(rowFiles.map((f) => f.file)).toEqual(expect.arrayContaining(['auth.rows.ts', 'organization.rows.ts']));
+  });
+
+  for (const { file, module } of rowFiles) {
+    describe(file, () => {
+      for (const row of module.rows) {
+        it(`${row.method} ${typeof row.path === 'string' ? row.path : '(built path)'}: ${row.title}`, async () => {
+          // Callers are independent (each gets its own fresh fixtures), so they go at once.
+          const answers = await Promise.all(callers.map((caller) => send(row, caller, fixturesByFile.get(file))));
+          const actual = Object.fromEntries(callers.map((caller, i) => [caller, answers[i].status])) as Record<Caller, number>;
+          const unknownRoutes = callers.filter((_, i) => answers[i].unknownRoute);
+          expect(unknownRoutes, 'the row names a route that does not exist').toEqual([]);
+          expect(actual).toEqual(row.expect);
+        });
+      }
+    });
+  }
+
+  it('has rows that agree with the policy tables: 403 exactly for the roles an action leaves out', () => {
+    const disagreements: string[] = [];
+    for (const row of allRows) {
+      if (!row.policy) continue;
+      const table = policyTables[row.policy.table];
+      if (!(row.policy.action in table)) {
+        disagreements.push(`${row.title}: no action ${row.policy.table}.${row.policy.action}`);
+        continue;
+      }
+      for (const role of allRoleKeys) {
+        const allowed = isAllowed(table, row.policy.action, role);
+        if (allowed === (row.expect[role] === 403)) disagreements.push(`${row.title}: ${role} is ${allowed ? 'allowed' : 'not allowed'} but the row expects ${row.expect[role]}`);
+      }
+    }
+    expect(disagreements).toEqual([]);
+  });
+
+  it('has a row for every action of every policy table', () => {
+    const covered = new Set(allRows.flatMap((row) => (row.policy ? [`${row.policy.table}.${row.policy.action}`] : [])));
+    const missing = Object.entries(policyTables).flatMap(([name, table]) => Object.keys(table).map((action) => `${name}.${action}`)).filter((key) => !covered.has(key));
+    expect(missing).toEqual([]);
+  });
+});

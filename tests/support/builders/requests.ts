@@ -1,0 +1,54 @@
+// Builders for the hive request flow: a small market (a farm with a block in bloom, two
+// apiaries with yards, people of each role) and request payloads as the client sends them.
+import { buildOrganization, buildUser } from './accounts.js';
+import { buildBlock, buildBloomWindow, buildYard } from './season.js';
+import type { RequestBody } from '../../../shared/schemas/requests.js';
+
+let counter = 0;
+
+/** A farm whose apple block is in bloom around `bloomStart`, and two apiary businesses with a yard each. */
+export async function buildMarket(attrs: { bloomStart?: string; fullBloom?: string; petalFall?: string; lon?: number; lat?: number } = {}) {
+  const tag = `${Date.now().toString(36)}${(counter++).toString(36)}`;
+  const lon = attrs.lon ?? -120.5;
+  const lat = attrs.lat ?? 46.6;
+  const farm = await buildOrganization({ kind: 'farm', name: `Quillfern Orchard ${tag}` });
+  const otherFarm = await buildOrganization({ kind: 'farm', name: `Tamsel Farm ${tag}` });
+  const apiary = await buildOrganization({ kind: 'apiary', name: `Wickmoor Apiary ${tag}` });
+  const apiary2 = await buildOrganization({ kind: 'apiary', name: `Hollin Bees ${tag}` });
+  const people = {
+    grower: await buildUser({ organization: farm, role: 'owner', email: `grower-${tag}@example.test`, name: 'Gale Orrin' }),
+    farmViewer: await buildUser({ organization: farm, role: 'viewer', email: `farm-viewer-${tag}@example.test` }),
+    otherGrower: await buildUser({ organization: otherFarm, role: 'owner', email: `other-grower-${tag}@example.test` }),
+    keeper: await buildUser({ organization: apiary, role: 'owner', email: `keeper-${tag}@example.test`, name: 'Bram Tully' }),
+    crew: await buildUser({ organization: apiary, role: 'crew', email: `crew-${tag}@example.test`, name: 'Nell Ashby' }),
+    apiaryViewer: await buildUser({ organization: apiary, role: 'viewer', email: `apiary-viewer-${tag}@example.test` }),
+    keeper2: await buildUser({ organization: apiary2, role: 'owner', email: `keeper2-${tag}@example.test`, name: 'Ivo Pell' }),
+  };
+  const block = await buildBlock({ farm, name: `North Galas ${tag}`, crop: 'apple', lon, lat, acres: 30, coloniesPerAcre: 2 });
+  await buildBloomWindow({ block, bloomStart: attrs.bloomStart ?? '2027-04-10', fullBloom: attrs.fullBloom ?? '2027-04-20', petalFall: attrs.petalFall ?? '2027-04-30' });
+  // Yards due east of the block on the same parallel: about 0.1 degrees of longitude apart.
+  const yard = await buildYard({ apiary, name: 'Creekside yard', lon: lon + 0.1, lat });
+  const yard2 = await buildYard({ apiary: apiary2, name: 'Ridge yard', lon: lon + 0.5, lat });
+  return { farm, otherFarm, apiary, apiary2, people, block, yard, yard2, lon, lat };
+}
+
+export function requestPayload(blockId: string, overrides: Partial<RequestBody> = {}, site: { lon: number; lat: number } = { lon: -120.5, lat: 46.6 }): RequestBody {
+  return {
+    title: 'Galas at first bloom',
+    blocks: [{ blockId, colonies: 60 }],
+    minFramesOfBees: 6,
+    minFramesOfBrood: null,
+    arrive: { rule: 'bloom-stage', bloomPercent: 5 },
+    depart: { rule: 'petal-fall' },
+    pricePerColonyCents: 7000,
+    depositShareBp: 5000,
+    balanceDueDays: 30,
+    lateInterestBpPerMonth: 100,
+    noticeHours: 48,
+    dropSites: [
+      { blockId, name: 'North lane', location: { type: 'Point', coordinates: [site.lon, site.lat] }, coloniesPlanned: 36, gateCode: '4471', vehicleAccess: 'Flatbed to the lane end', waterSource: 'Trough at the pump' },
+      { blockId, name: 'South gate', location: { type: 'Point', coordinates: [site.lon, site.lat - 0.002] }, coloniesPlanned: 24 },
+    ],
+    ...overrides,
+  };
+}
