@@ -20,11 +20,12 @@ describe('50 concurrent commitments', () => {
     const r = (await grower.post('/api/requests', requestPayload(m.block.id, { blocks: [{ blockId: m.block.id, colonies: 60 }] }, m)).expect(201)).body.request;
     await grower.post(`/api/requests/${r.id}/publish`).expect(200);
     requestId = r.id;
+    const emails: string[] = [];
     for (let i = 0; i < 50; i++) {
       const apiary = await buildOrganization({ kind: 'apiary', name: `Racing Apiary ${i}` });
-      const owner = await buildUser({ organization: apiary, role: 'owner', email: `racer-${i}-${Date.now()}@example.test` });
-      beekeepers.push(await signedInClient(t.app, owner.email));
+      emails.push((await buildUser({ organization: apiary, role: 'owner', email: `racer-${i}-${Date.now()}@example.test` })).email);
     }
+    beekeepers.push(...(await Promise.all(emails.map((email) => signedInClient(t.app, email)))));
   }, 120_000);
   afterAll(async () => { await t?.stop(); });
 

@@ -3,6 +3,8 @@
 // scoped to the caller's organization.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes } from 'sequelize';
+import request from 'supertest';
+import { io as connect } from 'socket.io-client';
 import { startTestApp, eventually, type TestApp } from '../support/test-app.js';
 import { apiClient, signedInClient } from '../support/api-client.js';
 import { buildOrganization, buildUser, defaultTestPassword } from '../support/builders/accounts.js';
@@ -94,7 +96,7 @@ describe('/api/organization', () => {
       const first = await client.post('/api/organization/invitations', { email: 'twice@example.test', role: 'viewer' });
       const second = await client.post('/api/organization/invitations', { email: 'twice@example.test', role: 'manager' });
       expect(second.status).toBe(201);
-      const open = (await client.get('/api/organization/invitations')).body.invitations;
+      const open = (await client.get('/api/organization/invitations')).body.invitations.filter((i: { email: string }) => i.email === 'twice@example.test');
       expect(open.map((i: { id: string; role: string }) => [i.id, i.role])).toEqual([[second.body.invitation.id, 'manager']]);
       expect((await client.delete(`/api/organization/invitations/${first.body.invitation.id}`)).status).toBe(404);
 
@@ -162,6 +164,24 @@ describe('/api/organization', () => {
       expect((await secondDevice.get('/api/auth/me')).status).toBe(401);
       expect((await (await apiClient(t.app)).post('/api/auth/login', { email: leaving.email, password: defaultTestPassword })).status).toBe(401);
       expect((await client.get('/api/organization/members')).body.members.map((m: { id: string }) => m.id)).not.toContain(leaving.id);
+    });
+
+    it('closes the removed member’s open sockets', async () => {
+      const { farm, client } = await farmWithOwner();
+      const leaving = await buildUser({ organization: farm, role: 'viewer' });
+      const agent = request.agent(t.baseUrl);
+      const csrf = (await agent.get('/api/auth/csrf')).body.csrfToken;
+      const login = await agent.post('/api/auth/login').set('X-CSRF-Token', csrf).send({ email: leaving.email, password: defaultTestPassword });
+      const cookie = ([] as string[]).concat(login.headers['set-cookie'] ?? []).map((c) => c.split(';')[0]).join('; ');
+      const socket = connect(t.baseUrl, { transports: ['websocket'], extraHeaders: { Cookie: cookie }, reconnection: false, forceNew: true });
+      try {
+        await new Promise<void>((resolve, reject) => { socket.once('session:ready', () => resolve()); socket.once('connect_error', reject); });
+        const closed = new Promise<string>((resolve) => socket.once('disconnect', resolve));
+        expect((await client.delete(`/api/organization/members/${leaving.id}`)).status).toBe(200);
+        expect(await closed).toBe('io server disconnect');
+      } finally {
+        socket.disconnect();
+      }
     });
 
     it('lets a removed person join again through a new invitation', async () => {

@@ -177,6 +177,49 @@ describe('spray plans API', () => {
     });
   });
 
+  describe('re-checks when what it reads changes', () => {
+    it('resolves the alert when the colonies are picked up, and reopens it when they come back', async () => {
+      const blockOnly = await buildBlock({ farm, lon: -119.95, lat: 44.95, name: 'Creek Corner' });
+      const keeperApiary = await buildOrganization({ kind: 'apiary', name: 'Saltmarsh Hives' });
+      const request = await buildRequest({ farm, blocks: [{ block: blockOnly, colonies: 8 }], onSite: { from: new Date(now.getTime() - DAY), to: new Date(now.getTime() + 9 * DAY) } });
+      const site = await buildDropSite({ request, block: blockOnly, lon: -119.95, lat: 44.95, coloniesPlanned: 8 });
+      const agreement = await buildAgreement({ commitment: await buildCommitment({ request, apiary: keeperApiary, colonies: 8 }) });
+      const placement = await buildPlacement({ agreement, dropSite: site, coloniesPlanned: 8, deliveredAt: new Date(now.getTime() - DAY) });
+      const created = (await applicator.post('/api/sprays', sprayInput({ blockIds: [blockOnly.id], startsAt: nightStart, ld50UgPerBee: 1, rt25Hours: 3 })).expect(201)).body;
+      const stateOf = async () => (await t.context.sequelize.query<{ state: string }>(
+        'SELECT state FROM alerts WHERE spray_plan_id = :id AND apiary_id = :apiaryId', { replacements: { id: created.spray.id, apiaryId: keeperApiary.id }, type: QueryTypes.SELECT },
+      ))[0]?.state;
+      expect(await stateOf()).toBe('raised');
+      const { placementChanged } = await import('../../server/src/modules/placements/placement-events.js');
+      await t.context.sequelize.query(`UPDATE placements SET state = 'picked-up', picked_up_at = now(), on_site = tstzrange(lower(on_site), now(), '[)') WHERE id = :id`, { replacements: { id: placement.id } });
+      await placementChanged(t.context, placement.id, 'picked-up');
+      expect(await stateOf()).toBe('resolved');
+      await t.context.sequelize.query(`UPDATE placements SET state = 'delivered', picked_up_at = NULL, on_site = tstzrange(lower(on_site), NULL, '[)') WHERE id = :id`, { replacements: { id: placement.id } });
+      await placementChanged(t.context, placement.id, 'delivered');
+      expect(await stateOf()).toBe('raised');
+      const history = (await keeperApiaryHistory(created.spray.id, keeperApiary.id)).map((e) => e.action);
+      expect(history).toEqual(['raised', 'resolved', 'reopened']);
+    });
+
+    it('re-grades when a bloom window is entered for the sprayed block', async () => {
+      const { bloomWindowChanged } = await import('../../server/src/modules/conflicts/conflict-triggers.js');
+      const { buildBloomWindow } = await import('../support/builders/season.js');
+      const lone = await buildBlock({ farm, lon: -118.5, lat: 44.9, name: 'Lone Pine' });
+      const created = (await applicator.post('/api/sprays', sprayInput({ blockIds: [lone.id], startsAt: nightStart, ld50UgPerBee: 1, rt25Hours: 3 })).expect(201)).body;
+      expect(created.check.conflicts).toEqual([]);
+      await buildBloomWindow({ block: lone, bloomStart: isoDay(now), petalFall: isoDay(new Date(now.getTime() + 10 * DAY)) });
+      await bloomWindowChanged(t.context, lone.id);
+      const after = (await grower.get(`/api/sprays/${created.spray.id}`).expect(200)).body;
+      expect(after.check.conflicts.map((c: { grade: string }) => c.grade)).toEqual(['bloom-spray']);
+      expect(after.spray.openAlerts).toBe(1);
+    });
+  });
+
+  const keeperApiaryHistory = (sprayId: string, apiaryId: string) => t.context.sequelize.query<{ action: string }>(
+    `SELECT e.action FROM alert_events e JOIN alerts a ON a.id = e.alert_id WHERE a.spray_plan_id = :sprayId AND a.apiary_id = :apiaryId ORDER BY e.id`,
+    { replacements: { sprayId, apiaryId }, type: QueryTypes.SELECT },
+  );
+
   describe('pest timing', () => {
     it('records trap counts and sets the biofix at the first of two successive catches', async () => {
       for (const [checkedOn, moths] of [['2027-05-01', 0], ['2027-05-04', 2], ['2027-05-07', 3]] as const) {

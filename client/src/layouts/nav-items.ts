@@ -13,6 +13,11 @@ export interface NavItem {
 
 export const navItems: NavItem[] = [
   { label: 'Season overview', icon: 'pi pi-compass', to: 'home', sides: ['farm', 'apiary', 'admin'] },
+  { label: 'Blocks', icon: 'pi pi-th-large', to: 'blocks', sides: ['farm'] },
+  { label: 'Weather', icon: 'pi pi-cloud', to: 'weather-stations', sides: ['farm'] },
+  { label: 'Season timeline', icon: 'pi pi-chart-bar', to: 'season-timeline', sides: ['farm', 'apiary'] },
+  { label: 'Season map', icon: 'pi pi-map', to: 'season-map', sides: ['farm', 'apiary'] },
+  { label: 'Members', icon: 'pi pi-users', to: 'members', sides: ['farm', 'apiary'], roles: ['farm:owner', 'apiary:owner'] },
 ];
 
 export function navFor(side: Side | null, role: RoleKey | null): NavItem[] {

@@ -49,6 +49,24 @@ export const pollenpactPreset = definePreset(Aura, {
     red: rust, orange: ember, amber: ember, yellow: ember,
     slate: straw, gray: straw, zinc: straw, neutral: straw, stone: straw,
   },
+  components: {
+    // Zoom and filter switches: the chosen option filled with the primary colour, the others in
+    // dark text, so the state reads at a glance in bright light.
+    togglebutton: {
+      colorScheme: {
+        light: {
+          root: { background: '{surface.100}', borderColor: '{surface.400}', hoverBackground: '{surface.200}', color: '{surface.800}', hoverColor: '{surface.950}', checkedBackground: '{primary.700}', checkedColor: '#ffffff', checkedBorderColor: '{primary.700}' },
+          content: { checkedBackground: '{primary.700}' },
+          icon: { color: '{surface.700}', hoverColor: '{surface.900}', checkedColor: '#ffffff' },
+        },
+        dark: {
+          root: { background: '{surface.900}', borderColor: '{surface.600}', hoverBackground: '{surface.800}', color: '{surface.100}', hoverColor: '{surface.0}', checkedBackground: '{primary.300}', checkedColor: '{primary.950}', checkedBorderColor: '{primary.300}' },
+          content: { checkedBackground: '{primary.300}' },
+          icon: { color: '{surface.200}', hoverColor: '{surface.0}', checkedColor: '{primary.950}' },
+        },
+      },
+    },
+  },
   semantic: {
     primary: moss,
     focusRing: { width: '3px', style: 'solid', color: '{amber.500}', offset: '2px' },

@@ -1,17 +1,25 @@
-// The router and its guards: signed-out users go to sign-in (and come back after);
-// a page outside the user's side or role sends them home.
+// The router and its guards: signed-out users go to sign-in (and come back after); a
+// signed-in user opening sign-in or sign-up goes home; a page outside the user's side or
+// role sends them home. A 401 from any API call ends the session here and goes to
+// sign-in, with the page to come back to.
 import { createRouter, createWebHistory } from 'vue-router';
-import { routes } from './routes';
+import { routes, type RouteName } from './routes';
 import { useSessionStore } from '@/stores/session';
 import { pinia } from '@/plugins/pinia';
 import { setUnauthenticatedHandler } from '@/api/http';
+import { safeRedirect } from '@/composables/useAuthLinks';
 
 export const router = createRouter({ history: createWebHistory(), routes });
+
+const signedOutOnly: RouteName[] = ['sign-in', 'sign-up', 'forgot-password'];
 
 router.beforeEach(async (to) => {
   const session = useSessionStore(pinia);
   await session.load();
-  if (to.meta.public) return true;
+  if (to.meta.public) {
+    if (session.user && signedOutOnly.includes(to.name as RouteName)) return safeRedirect(to.query.redirect);
+    return true;
+  }
   if (!session.user) return { name: 'sign-in', query: { redirect: to.fullPath } };
   if (to.meta.sides && !to.meta.sides.includes(session.side!)) return { name: 'home' };
   if (to.meta.roles && !to.meta.roles.includes(session.roleKey!)) return { name: 'home' };
@@ -26,5 +34,5 @@ setUnauthenticatedHandler(() => {
   const session = useSessionStore(pinia);
   session.forget();
   const current = router.currentRoute.value;
-  if (!current.meta.public) router.push({ name: 'sign-in', query: { redirect: current.fullPath } });
+  if (!current.meta.public) void router.push({ name: 'sign-in', query: { redirect: current.fullPath } });
 });

@@ -6,7 +6,20 @@ export type Side = 'farm' | 'apiary' | 'admin';
 
 export type RouteName =
   | 'sign-in'
+  | 'sign-up'
+  | 'forgot-password'
+  | 'reset-password'
+  | 'invitation'
+  | 'members'
   | 'home'
+  | 'season-timeline'
+  | 'season-map'
+  | 'blocks'
+  | 'block-new'
+  | 'block'
+  | 'block-edit'
+  | 'weather-stations'
+  | 'weather-station'
   | 'not-found';
 
 declare module 'vue-router' {
@@ -23,11 +36,24 @@ declare module 'vue-router' {
 
 export const authRoutes: RouteRecordRaw[] = [
   { path: '/sign-in', name: 'sign-in', component: () => import('@/pages/auth/SignInPage.vue'), meta: { public: true, title: 'Sign in' } },
+  { path: '/sign-up', name: 'sign-up', component: () => import('@/pages/auth/SignUpPage.vue'), meta: { public: true, title: 'Create an account' } },
+  { path: '/forgot-password', name: 'forgot-password', component: () => import('@/pages/auth/ForgotPasswordPage.vue'), meta: { public: true, title: 'Reset your password' } },
+  { path: '/reset-password', name: 'reset-password', component: () => import('@/pages/auth/ResetPasswordPage.vue'), meta: { public: true, title: 'Choose a new password' } },
+  { path: '/invitation', name: 'invitation', component: () => import('@/pages/auth/AcceptInvitationPage.vue'), meta: { public: true, title: 'Join your team' } },
 ];
 
 /** Pages inside the signed-in layout. */
 export const appRoutes: RouteRecordRaw[] = [
   { path: '', name: 'home', component: () => import('@/pages/HomePage.vue'), meta: { title: 'Season overview' } },
+  { path: 'blocks', name: 'blocks', component: () => import('@/pages/blocks/BlockListPage.vue'), meta: { title: 'Blocks', sides: ['farm'] } },
+  { path: 'blocks/new', name: 'block-new', component: () => import('@/pages/blocks/BlockEditPage.vue'), meta: { title: 'New block', sides: ['farm'], roles: ['farm:owner', 'farm:manager'] } },
+  { path: 'blocks/:id', name: 'block', component: () => import('@/pages/blocks/BlockDetailPage.vue'), meta: { title: 'Block', sides: ['farm'] } },
+  { path: 'blocks/:id/edit', name: 'block-edit', component: () => import('@/pages/blocks/BlockEditPage.vue'), meta: { title: 'Change block', sides: ['farm'], roles: ['farm:owner', 'farm:manager'] } },
+  { path: 'weather', name: 'weather-stations', component: () => import('@/pages/weather/StationListPage.vue'), meta: { title: 'Weather stations', sides: ['farm'] } },
+  { path: 'weather/:id', name: 'weather-station', component: () => import('@/pages/weather/StationDetailPage.vue'), meta: { title: 'Weather station', sides: ['farm'] } },
+  { path: 'organization/members', name: 'members', component: () => import('@/pages/organization/MembersPage.vue'), meta: { title: 'Members', sides: ['farm', 'apiary'], roles: ['farm:owner', 'apiary:owner'] } },
+  { path: 'season/timeline', name: 'season-timeline', component: () => import('@/pages/season/SeasonTimelinePage.vue'), meta: { title: 'Season timeline', sides: ['farm', 'apiary'] } },
+  { path: 'season/map', name: 'season-map', component: () => import('@/pages/season/SeasonMapPage.vue'), meta: { title: 'Season map', sides: ['farm', 'apiary'] } },
 ];
 
 export const routes: RouteRecordRaw[] = [

@@ -1,9 +1,11 @@
-// The signed-in user: loaded once, updated on sign-in and sign-out.
+// The signed-in user: loaded once, updated on sign-in, sign-out and joining by invitation.
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import { authApi } from '@/api/auth';
+import { organizationApi } from '@/api/organization';
 import { connectSocket, disconnectSocket } from '@/api/socket';
 import type { LoginBody, SignupBody, PreferencesBody, SessionUser } from '@shared/schemas/auth';
+import type { AcceptInvitationBody } from '@shared/schemas/organization';
 import { roleKey, type RoleKey } from '@shared/roles';
 
 export const useSessionStore = defineStore('session', () => {
@@ -16,6 +18,7 @@ export const useSessionStore = defineStore('session', () => {
   const currentRoleKey = computed<RoleKey | null>(() =>
     user.value ? roleKey(user.value.organization?.kind ?? null, user.value.role) : null,
   );
+  const isOwner = computed(() => user.value?.role === 'owner');
   const units = computed(() => user.value?.units ?? 'imperial');
   const timeZone = computed(() => user.value?.timeZone ?? user.value?.organization?.timeZone ?? 'UTC');
 
@@ -42,6 +45,7 @@ export const useSessionStore = defineStore('session', () => {
     loaded,
     side,
     roleKey: currentRoleKey,
+    isOwner,
     units,
     timeZone,
     load,
@@ -51,6 +55,9 @@ export const useSessionStore = defineStore('session', () => {
     },
     async signup(body: SignupBody) {
       setUser((await authApi.signup(body)).user);
+    },
+    async acceptInvitation(body: AcceptInvitationBody) {
+      setUser((await organizationApi.acceptInvitation(body)).user);
     },
     async logout() {
       await authApi.logout();

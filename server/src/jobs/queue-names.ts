@@ -2,6 +2,7 @@
 export const queueNames = {
   sendEmail: 'email-send',
   invoiceReminders: 'invoice-overdue-reminders',
+  invoiceEmail: 'invoice-email',
   bloomDigest: 'bloom-digest',
 } as const;
 

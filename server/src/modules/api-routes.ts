@@ -28,6 +28,7 @@ import { subscribeConflictTriggers } from './conflicts/conflict-triggers.js';
 import { invoicesRoutes } from './invoices/invoices.routes.js';
 import { paymentsRoutes, paymentsWebhookRoutes } from './payments/payments.routes.js';
 import { startOverdueReminders } from './invoices/overdue-reminders.job.js';
+import { startInvoiceEmailWorker } from './invoices/invoice-mail.js';
 
 export function apiRoutes(ctx: AppContext, passport: Passport, csrf: Csrf): Router {
   const router = Router();
@@ -70,4 +71,5 @@ export function webhookRoutes(ctx: AppContext): Router {
 export async function startFeatureWorkers(ctx: AppContext): Promise<void> {
   await startBloomDigestWorker(ctx);
   await startOverdueReminders(ctx);
+  await startInvoiceEmailWorker(ctx);
 }

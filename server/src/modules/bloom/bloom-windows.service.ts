@@ -75,6 +75,7 @@ export function createBloomWindowsService(ctx: AppContext) {
         // digest, so revisions made meanwhile share one e-mail and later jobs find nothing new.
         await ctx.jobs.send(queueNames.bloomDigest, { apiaryId }, { startAfter: ctx.config.bloomDigestDelaySeconds, retryLimit: 5, retryDelay: 30 });
       }
+      await (await import('../conflicts/conflict-triggers.js')).bloomWindowChanged(ctx, blockId); // re-run the spray conflict check
       return window;
     },
 

@@ -26,14 +26,15 @@ export function createCalendarService(ctx: AppContext) {
     },
 
     async feed(token: string): Promise<string> {
-      const user = await selectOne<{ id: string; organization_id: string | null; kind: string | null; org_name: string | null; time_zone: string }>(
+      const user = await selectOne<{ id: string; organization_id: string | null; kind: string | null; org_name: string | null }>(
         ctx,
-        `SELECT u.id, u.organization_id, o.kind, o.name AS org_name, coalesce(u.time_zone, o.time_zone, 'UTC') AS time_zone
+        `SELECT u.id, u.organization_id, o.kind, o.name AS org_name
          FROM users u LEFT JOIN organizations o ON o.id = u.organization_id WHERE u.calendar_token = :token AND u.disabled_at IS NULL`,
         { token },
       );
       if (!user || !user.organization_id) throw notFound('That calendar');
-      const calendar = ical({ name: `Pollenpact · ${user.org_name}`, timezone: user.time_zone, prodId: { company: 'Pollenpact', product: 'season-calendar' } });
+      // Times go out in UTC (RFC 5545 §3.3.5, form 2), which every calendar app shows in its own zone.
+      const calendar = ical({ name: `Pollenpact · ${user.org_name}`, prodId: { company: 'Pollenpact', product: 'season-calendar' } });
       const org = user.organization_id;
       const agreements = await selectRows<{ id: string; title: string; other: string; colonies: number; window: string; state: string }>(
         ctx,

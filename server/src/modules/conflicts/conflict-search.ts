@@ -96,6 +96,9 @@ const blocksSql = `
   WITH ${sprayedCte}
   SELECT id, name, ST_AsGeoJSON(geom) AS outline, ST_X(ST_Centroid(geom)) AS lon, ST_Y(ST_Centroid(geom)) AS lat FROM sprayed ORDER BY name`;
 
+/** The exposure search's SQL, for the benchmark's EXPLAIN. */
+export const exposureSqlForExplain = exposureSql;
+
 function replacements(scope: SearchScope) {
   return {
     farmId: scope.farmId,

@@ -6,6 +6,8 @@ import type { InvoiceDto } from '../../../../shared/schemas/invoices.js';
 import { enqueueEmail } from '../../jobs/send-email.job.js';
 import { formatMoney } from '../../../../shared/domain/money.js';
 import { renderInvoicePdf } from './invoice-pdf.js';
+import { queueNames } from '../../jobs/queue-names.js';
+import { createInvoicesService } from './invoices.service.js';
 
 export async function billingContactOf(ctx: AppContext, farmId: string): Promise<string | null> {
   const [row] = await ctx.sequelize.query<{ email: string | null }>(
@@ -35,5 +37,17 @@ export async function sendInvoiceEmail(ctx: AppContext, invoice: InvoiceDto) {
       'Sign in to Pollenpact to pay online or to see the details. The invoice is attached as a PDF.',
     ].join('\n\n'),
     attachments: [{ filename: `${invoice.number}.pdf`, contentType: 'application/pdf', contentBase64: pdf.toString('base64') }],
+  });
+}
+
+/** Worker: renders the issued invoice's PDF and e-mails it (the e-mail itself is one more queued job). */
+export async function startInvoiceEmailWorker(ctx: AppContext) {
+  const service = createInvoicesService(ctx);
+  await ctx.jobs.addWorker<{ invoiceId: string }>(queueNames.invoiceEmail, async ({ invoiceId }) => {
+    const [row] = await ctx.sequelize.query<{ apiary_id: string }>("SELECT apiary_id FROM invoices WHERE id = :invoiceId AND lifecycle = 'issued'", {
+      replacements: { invoiceId }, type: QueryTypes.SELECT,
+    });
+    if (!row) return;
+    await sendInvoiceEmail(ctx, await service.detail({ id: '', organizationId: row.apiary_id, organizationKind: 'apiary' }, invoiceId));
   });
 }

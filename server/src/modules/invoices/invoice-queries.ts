@@ -51,8 +51,11 @@ const selectSql = `
   JOIN organizations ap ON ap.id = i.apiary_id
   JOIN organizations f ON f.id = i.farm_id`;
 
+/** Whose invoices: a signed-in user, or a business acting for itself (jobs). */
+export type InvoiceScope = Pick<AuthUser, 'id' | 'organizationId' | 'organizationKind'>;
+
 /** Rows the user may see; `where` adds conditions on alias i. */
-export async function selectInvoices(ctx: AppContext, user: AuthUser, where = 'TRUE', replacements: Record<string, unknown> = {}, transaction?: Transaction): Promise<InvoiceRow[]> {
+export async function selectInvoices(ctx: AppContext, user: InvoiceScope, where = 'TRUE', replacements: Record<string, unknown> = {}, transaction?: Transaction): Promise<InvoiceRow[]> {
   const scope = user.organizationKind === 'apiary' ? 'i.apiary_id = :orgId' : "i.farm_id = :orgId AND i.lifecycle <> 'draft'";
   return ctx.sequelize.query<InvoiceRow>(`${selectSql} WHERE ${scope} AND (${where}) ORDER BY i.created_at DESC, i.id`, {
     replacements: { ...replacements, orgId: user.organizationId }, type: QueryTypes.SELECT, transaction,

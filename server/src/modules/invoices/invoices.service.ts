@@ -3,7 +3,6 @@
 // is paid, correct by credit note. Issued invoices are never edited.
 import { QueryTypes, UniqueConstraintError } from 'sequelize';
 import type { AppContext } from '../../context.js';
-import type { AuthUser } from '../auth/auth-user.js';
 import { Invoice } from '../../db/models/invoice.model.js';
 import { InvoiceLine } from '../../db/models/invoice-line.model.js';
 import { CreditNote } from '../../db/models/credit-note.model.js';
@@ -13,17 +12,18 @@ import type {
 import { notFound, wrongState, conflict, badRequest } from '../../errors/http-errors.js';
 import { selectInvoices, toInvoiceSummary, formatCreditNoteNumber, type InvoiceRow } from './invoice-queries.js';
 import { takeNextNumber } from './invoice-numbers.js';
+import type { InvoiceScope } from './invoice-queries.js';
 import { loadAgreement, priceAgreement, insertDraft, issueDraft } from './invoice-drafting.js';
-import { sendInvoiceEmail } from './invoice-mail.js';
+import { queueNames } from '../../jobs/queue-names.js';
 
 export function createInvoicesService(ctx: AppContext) {
-  async function findRow(user: AuthUser, id: string): Promise<InvoiceRow> {
+  async function findRow(user: InvoiceScope, id: string): Promise<InvoiceRow> {
     const [row] = await selectInvoices(ctx, user, 'i.id = :id', { id });
     if (!row) throw notFound('That invoice');
     return row;
   }
 
-  async function detail(user: AuthUser, id: string): Promise<InvoiceDto> {
+  async function detail(user: InvoiceScope, id: string): Promise<InvoiceDto> {
     const row = await findRow(user, id);
     const [lines, creditNotes, payments, refunds] = await Promise.all([
       InvoiceLine.findAll({ where: { invoiceId: id }, order: [['position', 'ASC']] }),
@@ -59,7 +59,7 @@ export function createInvoicesService(ctx: AppContext) {
     };
   }
 
-  async function list(user: AuthUser, query: InvoiceListQuery): Promise<InvoiceSummaryDto[]> {
+  async function list(user: InvoiceScope, query: InvoiceListQuery): Promise<InvoiceSummaryDto[]> {
     const rows = await selectInvoices(ctx, user);
     const asOf = ctx.now();
     return rows
@@ -67,7 +67,7 @@ export function createInvoicesService(ctx: AppContext) {
       .filter((s) => (!query.status || s.status === query.status) && (!query.season || s.season === query.season));
   }
 
-  async function draft(user: AuthUser, input: DraftInvoiceInput): Promise<InvoiceDto> {
+  async function draft(user: InvoiceScope, input: DraftInvoiceInput): Promise<InvoiceDto> {
     const agreement = await loadAgreement(ctx.sequelize, user.organizationId, input.agreementId);
     let invoiceId: string;
     try {
@@ -81,7 +81,7 @@ export function createInvoicesService(ctx: AppContext) {
   }
 
   /** Re-prices a draft from the current placements, with the given extra moves and notes. */
-  async function updateDraft(user: AuthUser, id: string, input: UpdateDraftInput): Promise<InvoiceDto> {
+  async function updateDraft(user: InvoiceScope, id: string, input: UpdateDraftInput): Promise<InvoiceDto> {
     const row = await findRow(user, id);
     if (user.organizationKind !== 'apiary') throw notFound('That invoice');
     if (row.lifecycle !== 'draft') throw wrongState('An issued invoice cannot be changed; add a credit note to correct it.');
@@ -104,20 +104,20 @@ export function createInvoicesService(ctx: AppContext) {
     return detail(user, id);
   }
 
-  async function discardDraft(user: AuthUser, id: string): Promise<void> {
+  async function discardDraft(user: InvoiceScope, id: string): Promise<void> {
     await findRow(user, id);
     const deleted = await Invoice.destroy({ where: { id, apiaryId: user.organizationId!, lifecycle: 'draft' } });
     if (deleted === 0) throw wrongState('Only a draft can be discarded; void an issued invoice instead.');
   }
 
-  async function issue(user: AuthUser, id: string): Promise<InvoiceDto> {
+  async function issue(user: InvoiceScope, id: string): Promise<InvoiceDto> {
     await issueDraft(ctx.sequelize, id, user.organizationId, user.id, ctx.now());
-    const issued = await detail(user, id);
-    await sendInvoiceEmail(ctx, issued);
-    return issued;
+    // The PDF and e-mail are made by a job, so issuing stays quick and survives a mail outage.
+    await ctx.jobs.send(queueNames.invoiceEmail, { invoiceId: id });
+    return detail(user, id);
   }
 
-  async function voidInvoice(user: AuthUser, id: string, input: VoidInvoiceInput): Promise<InvoiceDto> {
+  async function voidInvoice(user: InvoiceScope, id: string, input: VoidInvoiceInput): Promise<InvoiceDto> {
     await ctx.sequelize.transaction(async (transaction) => {
       await ctx.sequelize.query('SELECT 1 FROM invoices WHERE id = :id AND apiary_id = :orgId FOR UPDATE', { replacements: { id, orgId: user.organizationId }, transaction });
       const [row] = await selectInvoices(ctx, user, 'i.id = :id', { id }, transaction);
@@ -134,7 +134,7 @@ export function createInvoicesService(ctx: AppContext) {
     return detail(user, id);
   }
 
-  async function addCreditNote(user: AuthUser, id: string, input: CreditNoteInput): Promise<InvoiceDto> {
+  async function addCreditNote(user: InvoiceScope, id: string, input: CreditNoteInput): Promise<InvoiceDto> {
     await ctx.sequelize.transaction(async (transaction) => {
       await ctx.sequelize.query('SELECT 1 FROM invoices WHERE id = :id AND apiary_id = :orgId FOR UPDATE', { replacements: { id, orgId: user.organizationId }, transaction });
       const [row] = await selectInvoices(ctx, user, 'i.id = :id', { id }, transaction);
@@ -149,7 +149,7 @@ export function createInvoicesService(ctx: AppContext) {
   }
 
   /** Signed agreements of the user's apiary with delivered colonies and no live invoice yet. */
-  async function billableAgreements(user: AuthUser): Promise<BillableAgreementDto[]> {
+  async function billableAgreements(user: InvoiceScope): Promise<BillableAgreementDto[]> {
     const rows = await ctx.sequelize.query<{ id: string; farm_id: string; farm_name: string; colonies: number; delivered: number; price_per_colony_cents: number; currency: string; on_site_from: Date }>(
       `SELECT a.id, a.farm_id, f.name AS farm_name, a.colonies, a.price_per_colony_cents, trim(a.currency) AS currency, lower(a.expected_on_site) AS on_site_from,
          coalesce((SELECT sum(p.colonies_delivered) FROM placements p WHERE p.agreement_id = a.id AND p.state IN ('delivered', 'picked-up')), 0)::int AS delivered

@@ -32,6 +32,7 @@ export function createWeatherController(stations: StationsService, chill: Return
       res.json({ temperature: await stations.enterDay(farmOf(req), currentUser(req).id, idOf(req), String(req.params.day), req.body) });
     },
     async upload(req: Request, res: Response) {
+      await stations.get(farmOf(req), idOf(req)); // another farm's station is not found, file or not
       if (!req.file) throw badRequest('Choose a CSV file to upload.', { file: 'is required' });
       const fields = parseOrThrow(temperatureUploadFields, req.body ?? {});
       res.json({ result: await stations.upload(farmOf(req), currentUser(req).id, idOf(req), req.file.buffer, fields) });
