@@ -4,6 +4,7 @@
 // Rutgers (New Jersey) recommendations; a group passes when the frames its weak colonies
 // lack are made up by the frames its strong colonies have above the minimum (Rutgers),
 // which is the same as a sample average at or above the minimum (TRADE.md §2).
+import { cropInfo } from './crops.js';
 
 export const MINIMUM_SAMPLE_SHARE = 0.1;
 
@@ -78,12 +79,10 @@ export function summarizeStrength(input: {
 }
 
 /**
- * Starting values for the minimum strength a grower asks, per crop (TRADE.md §2): almond
- * 6 frames of bees minimum (Almond Board of California BMPs); apple 6 frames of brood
- * covered by bees (Delaplane & Mayer 2000, ch. 17). Other crops: 6 frames of bees, common
- * practice, no source. The grower may change them.
+ * Starting values for the minimum strength a grower asks, per crop: frames of bees from
+ * the crop table (crops.ts, TRADE.md §2); for apple also 6 frames of brood covered by bees
+ * (Delaplane & Mayer 2000, Crop Pollination by Bees, ch. 17). The grower may change them.
  */
 export function defaultMinimumStrength(crop: string): { framesOfBees: number; framesOfBrood: number | null } {
-  if (crop === 'apple') return { framesOfBees: 6, framesOfBrood: 6 };
-  return { framesOfBees: 6, framesOfBrood: null };
+  return { framesOfBees: cropInfo(crop)?.minFramesOfBees ?? 6, framesOfBrood: crop === 'apple' ? 6 : null };
 }

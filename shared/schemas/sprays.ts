@@ -117,4 +117,6 @@ export interface SprayDto {
 export interface SprayWithCheck {
   spray: SprayDto;
   check: SprayCheckResult;
+  /** The farm's buffer around the sprayed blocks (GeoJSON geometry), for the map. */
+  buffer: { type: 'Polygon' | 'MultiPolygon'; coordinates: unknown[] } | null;
 }

@@ -20,6 +20,22 @@ export type RouteName =
   | 'block-edit'
   | 'weather-stations'
   | 'weather-station'
+  | 'sprays'
+  | 'spray-new'
+  | 'spray'
+  | 'spray-edit'
+  | 'alerts'
+  | 'alert'
+  | 'invoices'
+  | 'invoice'
+  | 'requests'
+  | 'request-new'
+  | 'request'
+  | 'yards'
+  | 'agreements'
+  | 'agreement'
+  | 'placements'
+  | 'placement'
   | 'not-found';
 
 declare module 'vue-router' {
@@ -54,6 +70,22 @@ export const appRoutes: RouteRecordRaw[] = [
   { path: 'organization/members', name: 'members', component: () => import('@/pages/organization/MembersPage.vue'), meta: { title: 'Members', sides: ['farm', 'apiary'], roles: ['farm:owner', 'apiary:owner'] } },
   { path: 'season/timeline', name: 'season-timeline', component: () => import('@/pages/season/SeasonTimelinePage.vue'), meta: { title: 'Season timeline', sides: ['farm', 'apiary'] } },
   { path: 'season/map', name: 'season-map', component: () => import('@/pages/season/SeasonMapPage.vue'), meta: { title: 'Season map', sides: ['farm', 'apiary'] } },
+  { path: 'sprays', name: 'sprays', component: () => import('@/pages/sprays/SprayListPage.vue'), meta: { title: 'Sprays', sides: ['farm'] } },
+  { path: 'sprays/new', name: 'spray-new', component: () => import('@/pages/sprays/SprayEditPage.vue'), meta: { title: 'Plan a spray', sides: ['farm'], roles: ['farm:owner', 'farm:manager', 'farm:applicator'] } },
+  { path: 'sprays/:id', name: 'spray', component: () => import('@/pages/sprays/SprayDetailPage.vue'), meta: { title: 'Spray plan', sides: ['farm'] } },
+  { path: 'sprays/:id/edit', name: 'spray-edit', component: () => import('@/pages/sprays/SprayEditPage.vue'), meta: { title: 'Change the spray plan', sides: ['farm'], roles: ['farm:owner', 'farm:manager', 'farm:applicator'] } },
+  { path: 'alerts', name: 'alerts', component: () => import('@/pages/alerts/AlertListPage.vue'), meta: { title: 'Spray alerts', sides: ['farm', 'apiary'] } },
+  { path: 'alerts/:id', name: 'alert', component: () => import('@/pages/alerts/AlertListPage.vue'), meta: { title: 'Spray alert', sides: ['farm', 'apiary'] } },
+  { path: 'invoices', name: 'invoices', component: () => import('@/pages/invoices/InvoiceListPage.vue'), meta: { title: 'Invoices', sides: ['farm', 'apiary'], roles: ['apiary:owner', 'apiary:manager', 'apiary:viewer', 'farm:owner', 'farm:manager', 'farm:viewer'] } },
+  { path: 'invoices/:id', name: 'invoice', component: () => import('@/pages/invoices/InvoiceDetailPage.vue'), meta: { title: 'Invoice', sides: ['farm', 'apiary'], roles: ['apiary:owner', 'apiary:manager', 'apiary:viewer', 'farm:owner', 'farm:manager', 'farm:viewer'] } },
+  { path: 'requests', name: 'requests', component: () => import('@/pages/requests/RequestListPage.vue'), meta: { title: 'Hive requests', sides: ['farm', 'apiary'] } },
+  { path: 'requests/new', name: 'request-new', component: () => import('@/pages/requests/RequestFormPage.vue'), meta: { title: 'Ask for colonies', sides: ['farm'], roles: ['farm:owner', 'farm:manager'] } },
+  { path: 'requests/:id', name: 'request', component: () => import('@/pages/requests/RequestDetailPage.vue'), meta: { title: 'Hive request', sides: ['farm', 'apiary'] } },
+  { path: 'yards', name: 'yards', component: () => import('@/pages/requests/YardListPage.vue'), meta: { title: 'Yards', sides: ['apiary'] } },
+  { path: 'agreements', name: 'agreements', component: () => import('@/pages/agreements/AgreementListPage.vue'), meta: { title: 'Agreements', sides: ['farm', 'apiary'] } },
+  { path: 'agreements/:id', name: 'agreement', component: () => import('@/pages/agreements/AgreementDetailPage.vue'), meta: { title: 'Agreement', sides: ['farm', 'apiary'] } },
+  { path: 'placements', name: 'placements', component: () => import('@/pages/placements/PlacementListPage.vue'), meta: { title: 'Drop sites', sides: ['farm', 'apiary'] } },
+  { path: 'placements/:id', name: 'placement', component: () => import('@/pages/placements/PlacementFieldPage.vue'), meta: { title: 'Drop site', sides: ['farm', 'apiary'] } },
 ];
 
 export const routes: RouteRecordRaw[] = [

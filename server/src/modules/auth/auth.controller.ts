@@ -17,19 +17,20 @@ function logIn(req: Request, user: AuthUser): Promise<void> {
 }
 
 /** Signs the user in on a fresh session id (passport regenerates it) and answers with the user and a new CSRF token. */
-export async function signIn(req: Request, res: Response, csrf: Csrf, user: AuthUser, status = 200) {
+export async function signIn(req: Request, res: Response, csrf: Csrf, now: () => Date, user: AuthUser, status = 200) {
   await logIn(req, user);
-  req.session.createdAt = Date.now();
+  // The start of the session's absolute lifetime, on the app's clock (absoluteSessionExpiry).
+  req.session.createdAt = now().getTime();
   res.status(status).json({ user: toSessionUser(user), csrfToken: csrf.issue(req, res) });
 }
 
-export function createAuthController(passport: Passport, csrf: Csrf, service: AuthService, passwordReset: PasswordResetService) {
+export function createAuthController(passport: Passport, csrf: Csrf, now: () => Date, service: AuthService, passwordReset: PasswordResetService) {
 
   const login: RequestHandler = (req, res, next: NextFunction) => {
     passport.authenticate('local', { session: false }, (err: unknown, user: AuthUser | false) => {
       if (err) return next(err);
       if (!user) return next(badCredentials());
-      signIn(req, res, csrf, user).catch(next);
+      signIn(req, res, csrf, now, user).catch(next);
     })(req, res, next);
   };
 
@@ -37,7 +38,7 @@ export function createAuthController(passport: Passport, csrf: Csrf, service: Au
     login,
     async signup(req: Request, res: Response) {
       const user = await service.signup(req.body);
-      await signIn(req, res, csrf, user, 201);
+      await signIn(req, res, csrf, now, user, 201);
     },
     logout(req: Request, res: Response, next: NextFunction) {
       req.logout((err) => {

@@ -6,7 +6,7 @@ import type { Csrf } from '../auth/csrf.js';
 import type { OrganizationService } from './organization.service.js';
 import type { InvitationAcceptanceService } from './invitation-acceptance.service.js';
 
-export function createOrganizationController(csrf: Csrf, service: OrganizationService, acceptance: InvitationAcceptanceService) {
+export function createOrganizationController(csrf: Csrf, now: () => Date, service: OrganizationService, acceptance: InvitationAcceptanceService) {
   return {
     async listMembers(req: Request, res: Response) {
       res.json({ members: await service.listMembers(currentUser(req)) });
@@ -32,7 +32,7 @@ export function createOrganizationController(csrf: Csrf, service: OrganizationSe
       res.json({ invitation: await acceptance.preview(req.body.token) });
     },
     async acceptInvitation(req: Request, res: Response) {
-      await signIn(req, res, csrf, await acceptance.accept(req.body), 201);
+      await signIn(req, res, csrf, now, await acceptance.accept(req.body), 201);
     },
   };
 }

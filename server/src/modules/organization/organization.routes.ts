@@ -14,7 +14,7 @@ import type { Csrf } from '../auth/csrf.js';
 import type { AppContext } from '../../context.js';
 
 export function organizationRoutes(ctx: AppContext, csrf: Csrf): Router {
-  const controller = createOrganizationController(csrf, createOrganizationService(ctx), createInvitationAcceptanceService(ctx));
+  const controller = createOrganizationController(csrf, ctx.now, createOrganizationService(ctx), createInvitationAcceptanceService(ctx));
   const router = Router();
   router.get('/members', allow(policy, 'listMembers'), controller.listMembers);
   router.patch('/members/:id', allow(policy, 'changeRole'), validate({ params: idParams, body: roleChangeBody }), controller.changeRole);

@@ -56,11 +56,16 @@ export function createPaymentsService(ctx: AppContext) {
       if (row.lifecycle !== 'issued') throw wrongState('Payments are recorded only on issued invoices.');
       const outstanding = row.total_cents - row.credited_cents - row.paid_cents;
       if (input.amountCents > outstanding) throw badRequest(`The payment is more than is outstanding (${outstanding} cents).`, { amountCents: `must be at most ${outstanding}` });
-      const receivedAt = DateTime.fromISO(input.receivedOn, { zone: row.time_zone }).set({ hour: 12 });
-      if (receivedAt.toJSDate() > ctx.now()) throw badRequest('A payment cannot be received in the future.', { receivedOn: 'must not be in the future' });
+      const now = ctx.now();
+      if (input.receivedOn > DateTime.fromJSDate(now, { zone: row.time_zone }).toISODate()!) {
+        throw badRequest('A payment cannot be received in the future.', { receivedOn: 'must not be in the future' });
+      }
+      // Noon of the day received, in the business's time zone (never later than now).
+      const noon = DateTime.fromISO(input.receivedOn, { zone: row.time_zone }).set({ hour: 12 }).toJSDate();
+      const receivedAt = noon > now ? now : noon;
       const payment = await Payment.create({
         invoiceId: row.id, method: input.method, state: 'succeeded', amountCents: input.amountCents, currency: row.currency, providerPaymentId: null,
-        failureMessage: null, reference: input.reference || null, receivedAt: receivedAt.toJSDate(), recordedBy: user.id,
+        failureMessage: null, reference: input.reference || null, receivedAt, recordedBy: user.id,
       }, { transaction });
       transaction.afterCommit(() => publishInvoiceChange(ctx, row.id));
       return { paymentId: payment.id, invoiceId: row.id };

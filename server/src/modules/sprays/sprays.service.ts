@@ -74,7 +74,15 @@ export function createSpraysService(ctx: AppContext) {
     const row = await load(farmId, id);
     const stored = await loadStoredSpray(ctx.sequelize, id);
     const check = await checkStoredSpray(ctx.sequelize, stored!);
-    return { spray: toDto(row), check: publicCheck(row.state === 'cancelled' ? { ...check, conflicts: [] } : check) };
+    const [area] = await q<{ buffer: string | null }>(
+      `SELECT ST_AsGeoJSON(ST_Union(ST_Buffer(coalesce(b.outline, b.location)::geography, o.spray_buffer_m)::geometry), 6) AS buffer
+       FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id JOIN organizations o ON o.id = b.farm_id WHERE sb.spray_plan_id = :id`, { id },
+    );
+    return {
+      spray: toDto(row),
+      check: publicCheck(row.state === 'cancelled' ? { ...check, conflicts: [] } : check),
+      buffer: area?.buffer ? JSON.parse(area.buffer) : null,
+    };
   }
 
   return {

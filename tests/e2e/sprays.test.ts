@@ -1,0 +1,97 @@
+// In the browser: the applicator plans a spray during bloom next to placed colonies and sees
+// the conflicts before saving; the beekeeper, signed in in a second browser, sees the alert
+// arrive without reloading and answers it; the grower sees the answer.
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { DateTime } from 'luxon';
+import { startTestApp, type TestApp } from '../support/test-app.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot } from '../support/browser.js';
+import { buildOrganization, buildUser } from '../support/builders/accounts.js';
+import { buildSignedSeason } from '../support/builders/season.js';
+
+const DAY = 86_400_000;
+
+describe('spray plans and live alerts in the browser', () => {
+  let t: TestApp;
+  let browser: Browser;
+  const zone = 'America/Los_Angeles';
+  const now = new Date();
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    const farm = await buildOrganization({ kind: 'farm', name: 'Larchmont Bench Orchard', timeZone: zone });
+    const apiary = await buildOrganization({ kind: 'apiary', name: 'Goldthread Apiaries' });
+    await buildUser({ organization: farm, role: 'owner', email: 'grower@sprays-e2e.test', name: 'Ada Grower' });
+    await buildUser({ organization: farm, role: 'applicator', email: 'applicator@sprays-e2e.test', name: 'Ivo Applicator' });
+    await buildUser({ organization: apiary, role: 'owner', email: 'keeper@sprays-e2e.test', name: 'Bea Keeper' });
+    const season = await buildSignedSeason({
+      farm, apiary, colonies: 24, onSite: { from: new Date(now.getTime() - DAY), to: new Date(now.getTime() + 20 * DAY) },
+      bloom: { bloomStart: new Date(now.getTime() - 2 * DAY).toISOString().slice(0, 10), petalFall: new Date(now.getTime() + 10 * DAY).toISOString().slice(0, 10) },
+    });
+    await t.context.sequelize.query("UPDATE blocks SET name = 'Cedar Row' WHERE id = :id", { replacements: { id: season.block.id } });
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await t?.stop();
+  });
+
+  it('raises the alert live for the beekeeper, who answers; the grower sees the answer', async () => {
+    const keeper = await openWatchedPage(browser);
+    await signInThroughPage(keeper.page, t.baseUrl, 'keeper@sprays-e2e.test');
+    await keeper.page.goto(`${t.baseUrl}/alerts`);
+    await saveScreenshot(keeper.page, 'sprays-debug');
+    console.log('DEBUG', keeper.consoleErrors, await keeper.page.locator('main').textContent());
+    await expect.poll(() => keeper.page.getByText('No open alerts').isVisible()).toBe(true);
+
+    const applicator = await openWatchedPage(browser);
+    await signInThroughPage(applicator.page, t.baseUrl, 'applicator@sprays-e2e.test');
+    await applicator.page.goto(`${t.baseUrl}/sprays/new`);
+    const page = applicator.page;
+    await page.locator('.p-multiselect').first().click();
+    await page.getByRole('option', { name: 'Cedar Row' }).click();
+    await page.keyboard.press('Escape');
+    const start = DateTime.now().setZone(zone).plus({ days: 3 }).set({ hour: 22, minute: 0 });
+    await page.getByLabel(`Start (${zone})`).fill(start.toFormat("yyyy-LL-dd'T'HH:mm"));
+    await page.getByLabel(`End (${zone})`).fill(start.plus({ hours: 2 }).toFormat("yyyy-LL-dd'T'HH:mm"));
+    await page.getByLabel('Product name').fill('Codling Shield 50WP');
+    await page.getByLabel('EPA registration number').fill('12-ab');
+    // The dry run names the bad field next to it, and shows nothing else.
+    await expect.poll(() => page.locator('#spray-epa-error').textContent()).toMatch(/EPA registration number/);
+    await page.getByLabel('EPA registration number').fill('1234-56');
+    const conflicts = page.locator('[data-spray-conflicts]');
+    await expect.poll(() => conflicts.textContent(), { timeout: 10_000 }).toMatch(/Barred during bloom/);
+    expect(await conflicts.textContent()).toMatch(/Goldthread Apiaries/);
+    expect(await conflicts.textContent()).toMatch(/treated as\s+highly toxic/);
+    expect(await conflicts.textContent()).toMatch(/label is the law/);
+    await saveScreenshot(page, 'sprays-form-dry-run');
+    await page.getByRole('button', { name: 'Save the plan' }).click();
+    await page.waitForURL(/\/sprays\/[0-9a-f-]{36}$/);
+    await expect.poll(() => page.locator('[data-spray-state]').textContent()).toBe('Planned');
+
+    // The beekeeper's page was not reloaded: the bell and the list update live, with a toast.
+    await expect.poll(() => keeper.page.locator('[data-alert-count]').textContent(), { timeout: 10_000 }).toBe('1');
+    await expect.poll(() => keeper.page.locator('.p-toast-message').first().textContent()).toMatch(/Spray alert: Barred during bloom/);
+    const card = keeper.page.locator('[data-alert-card]').first();
+    await expect.poll(() => card.textContent()).toMatch(/Codling Shield 50WP on Cedar Row/);
+    expect(await card.textContent()).toMatch(/licensed applicator/);
+    await saveScreenshot(keeper.page, 'sprays-alert-arrived');
+    await card.locator('.p-select').click();
+    await keeper.page.getByRole('option', { name: 'We will close the colonies in for the spray' }).click();
+    await card.getByLabel('Note (optional)').fill('Closing at dusk');
+    await card.getByRole('button', { name: 'Send answer' }).click();
+    await expect.poll(() => card.locator('[data-alert-state]').textContent()).toBe('Answered');
+
+    const grower = await openWatchedPage(browser);
+    await signInThroughPage(grower.page, t.baseUrl, 'grower@sprays-e2e.test');
+    await grower.page.goto(`${t.baseUrl}/alerts`);
+    const growerCard = grower.page.locator('[data-alert-card]').first();
+    await expect.poll(() => growerCard.locator('[data-alert-answer]').textContent()).toMatch(/Goldthread Apiaries:\s*We will close the colonies in for the spray — “Closing at dusk”/);
+    await saveScreenshot(grower.page, 'sprays-grower-sees-answer');
+
+    for (const watched of [keeper, applicator, grower]) {
+      expect(watched.externalRequests).toEqual([]);
+      expect(watched.consoleErrors.filter((e) => !/status of 400/.test(e))).toEqual([]);
+    }
+  });
+});
