@@ -16,6 +16,7 @@ declare module 'vue' {
     AlertBell: typeof import('./src/components/alerts/AlertBell.vue')['default']
     AlertCard: typeof import('./src/components/alerts/AlertCard.vue')['default']
     AuthCard: typeof import('./src/components/auth/AuthCard.vue')['default']
+    Badge: typeof import('primevue/badge')['default']
     BlockBloomHistory: typeof import('./src/components/blocks/BlockBloomHistory.vue')['default']
     BlockBloomWindowForm: typeof import('./src/components/blocks/BlockBloomWindowForm.vue')['default']
     BlockForecastChart: typeof import('./src/components/blocks/BlockForecastChart.vue')['default']

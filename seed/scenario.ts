@@ -2,9 +2,13 @@
 // Features add their part to the list.
 import type { SeedWorld } from './seed-world.js';
 import { seedAccounts } from './parts/accounts.seed.js';
+import { seedBlocks } from './parts/blocks.seed.js';
+import { seedSprays } from './parts/sprays.seed.js';
 
 export const seedParts: Array<{ name: string; run: (world: SeedWorld) => Promise<void> }> = [
   { name: 'accounts', run: seedAccounts },
+  { name: 'blocks', run: seedBlocks },
+  { name: 'sprays', run: seedSprays },
 ];
 
 export async function seedScenario(today: Date): Promise<SeedWorld> {

@@ -66,7 +66,7 @@ export interface ForecastLowDto {
 
 export interface UploadLineError {
   line: number;
-  field: 'date' | 'tmin' | 'tmax' | 'line';
+  field: 'date' | 'tmin' | 'tmax' | 'low';
   message: string;
 }
 

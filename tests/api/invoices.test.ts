@@ -3,6 +3,7 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { startTestApp, eventually, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
+import type { Organization } from '../../server/src/db/models/organization.model.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildBillableSeason, buildInvoice, buildManualPayment } from '../support/builders/invoices.js';
 import { sendOverdueReminders } from '../../server/src/modules/invoices/overdue-reminders.job.js';
@@ -13,8 +14,8 @@ describe('invoices API', () => {
   let keeper: ApiClient;
   let grower: ApiClient;
   let otherKeeper: ApiClient;
-  let farm: { id: string };
-  let apiary: { id: string };
+  let farm: Organization;
+  let apiary: Organization;
   const deliveredAt = new Date('2027-04-10T15:00:00Z'); // 10 April, 08:00 in Los Angeles
   const pickedUpAt = new Date('2027-05-01T20:00:00Z'); // 1 May, 13:00 in Los Angeles
 

@@ -6,6 +6,7 @@ import Stripe from 'stripe';
 import { DateTime } from 'luxon';
 import { startTestApp, eventually, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
+import type { Organization } from '../../server/src/db/models/organization.model.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildBillableSeason, buildInvoice } from '../support/builders/invoices.js';
 
@@ -13,8 +14,8 @@ describe('payments API', () => {
   let t: TestApp;
   let keeper: ApiClient;
   let grower: ApiClient;
-  let farm: { id: string };
-  let apiary: { id: string };
+  let farm: Organization;
+  let apiary: Organization;
   const clock = new Date();
   const deliveredAt = clock; // the deposit falls due today, so nothing is overdue yet
   const todayThere = DateTime.fromJSDate(clock, { zone: 'America/Los_Angeles' }).toISODate()!; // the business's time zone

@@ -112,6 +112,26 @@ describe('/api/weather/stations', () => {
     expect(res.body.chill.source).toMatch(/Utah model/);
   });
 
+  it('takes forecast lows from a CSV, reporting bad lines the same way', async () => {
+    const csv = 'date,low\n2027-03-20,28\n2027-03-21,cold\n2027-03-20,30\n2027-03-22,31\n';
+    const post = (fields: Record<string, string>) => {
+      let req = grower.agent.post(`/api/weather/stations/${station.id}/forecast-lows/upload`).set('X-CSRF-Token', grower.csrfToken);
+      for (const [k, v] of Object.entries(fields)) req = req.field(k, v);
+      return req.attach('file', Buffer.from(csv), { filename: 'lows.csv', contentType: 'text/csv' });
+    };
+    const refused = await post({ unit: 'F' });
+    expect(refused.status).toBe(400);
+    expect(Object.keys(refused.body.error.fields).sort()).toEqual(['lines.3.low', 'lines.4.date']);
+    expect((await grower.get(`/api/weather/stations/${station.id}/forecast-lows`).expect(200)).body.forecastLows).toEqual([]);
+    const saved = await post({ unit: 'F', skipBadLines: 'true' });
+    expect(saved.status).toBe(200);
+    expect(saved.body.result.saved).toBe(2);
+    const lows = (await grower.get(`/api/weather/stations/${station.id}/forecast-lows`).expect(200)).body.forecastLows;
+    // Source: NIST Handbook 44, Appendix C: 28 °F = -2.22 °C.
+    expect(lows[0]).toMatchObject({ day: '2027-03-20' });
+    expect(lows[0].lowC).toBeCloseTo(-2.222, 2);
+  });
+
   it('keeps another farm out of the station (404)', async () => {
     expect((await otherGrower.get(`/api/weather/stations/${station.id}`)).status).toBe(404);
     expect((await otherGrower.put(`/api/weather/stations/${station.id}/temperatures/2027-03-11`, { tmin: 1, tmax: 2, unit: 'C' })).status).toBe(404);

@@ -10,6 +10,8 @@ import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildSignedSeason } from '../support/builders/season.js';
 
 const DAY = 86_400_000;
+// Pages load slowly on a busy machine: give each wait a generous limit.
+const slow = { timeout: 15_000 };
 
 describe('spray plans and live alerts in the browser', () => {
   let t: TestApp;
@@ -40,9 +42,7 @@ describe('spray plans and live alerts in the browser', () => {
     const keeper = await openWatchedPage(browser);
     await signInThroughPage(keeper.page, t.baseUrl, 'keeper@sprays-e2e.test');
     await keeper.page.goto(`${t.baseUrl}/alerts`);
-    await saveScreenshot(keeper.page, 'sprays-debug');
-    console.log('DEBUG', keeper.consoleErrors, await keeper.page.locator('main').textContent());
-    await expect.poll(() => keeper.page.getByText('No open alerts').isVisible()).toBe(true);
+    await expect.poll(() => keeper.page.getByText('No open alerts').isVisible(), slow).toBe(true);
 
     const applicator = await openWatchedPage(browser);
     await signInThroughPage(applicator.page, t.baseUrl, 'applicator@sprays-e2e.test');
@@ -57,36 +57,36 @@ describe('spray plans and live alerts in the browser', () => {
     await page.getByLabel('Product name').fill('Codling Shield 50WP');
     await page.getByLabel('EPA registration number').fill('12-ab');
     // The dry run names the bad field next to it, and shows nothing else.
-    await expect.poll(() => page.locator('#spray-epa-error').textContent()).toMatch(/EPA registration number/);
+    await expect.poll(() => page.locator('#spray-epa-error').textContent(), slow).toMatch(/EPA registration number/);
     await page.getByLabel('EPA registration number').fill('1234-56');
     const conflicts = page.locator('[data-spray-conflicts]');
-    await expect.poll(() => conflicts.textContent(), { timeout: 10_000 }).toMatch(/Barred during bloom/);
+    await expect.poll(() => conflicts.textContent(), slow).toMatch(/Barred during bloom/);
     expect(await conflicts.textContent()).toMatch(/Goldthread Apiaries/);
     expect(await conflicts.textContent()).toMatch(/treated as\s+highly toxic/);
     expect(await conflicts.textContent()).toMatch(/label is the law/);
     await saveScreenshot(page, 'sprays-form-dry-run');
     await page.getByRole('button', { name: 'Save the plan' }).click();
     await page.waitForURL(/\/sprays\/[0-9a-f-]{36}$/);
-    await expect.poll(() => page.locator('[data-spray-state]').textContent()).toBe('Planned');
+    await expect.poll(() => page.locator('[data-spray-state]').textContent(), slow).toBe('Planned');
 
     // The beekeeper's page was not reloaded: the bell and the list update live, with a toast.
-    await expect.poll(() => keeper.page.locator('[data-alert-count]').textContent(), { timeout: 10_000 }).toBe('1');
-    await expect.poll(() => keeper.page.locator('.p-toast-message').first().textContent()).toMatch(/Spray alert: Barred during bloom/);
+    await expect.poll(() => keeper.page.locator('[data-alert-count]').textContent(), slow).toBe('1');
+    await expect.poll(() => keeper.page.locator('.p-toast-message').first().textContent(), slow).toMatch(/Spray alert: Barred during bloom/);
     const card = keeper.page.locator('[data-alert-card]').first();
-    await expect.poll(() => card.textContent()).toMatch(/Codling Shield 50WP on Cedar Row/);
+    await expect.poll(() => card.textContent(), slow).toMatch(/Codling Shield 50WP on Cedar Row/);
     expect(await card.textContent()).toMatch(/licensed applicator/);
     await saveScreenshot(keeper.page, 'sprays-alert-arrived');
     await card.locator('.p-select').click();
     await keeper.page.getByRole('option', { name: 'We will close the colonies in for the spray' }).click();
     await card.getByLabel('Note (optional)').fill('Closing at dusk');
     await card.getByRole('button', { name: 'Send answer' }).click();
-    await expect.poll(() => card.locator('[data-alert-state]').textContent()).toBe('Answered');
+    await expect.poll(() => card.locator('[data-alert-state]').textContent(), slow).toBe('Answered');
 
     const grower = await openWatchedPage(browser);
     await signInThroughPage(grower.page, t.baseUrl, 'grower@sprays-e2e.test');
     await grower.page.goto(`${t.baseUrl}/alerts`);
     const growerCard = grower.page.locator('[data-alert-card]').first();
-    await expect.poll(() => growerCard.locator('[data-alert-answer]').textContent()).toMatch(/Goldthread Apiaries:\s*We will close the colonies in for the spray — “Closing at dusk”/);
+    await expect.poll(() => growerCard.locator('[data-alert-answer]').textContent(), slow).toMatch(/Goldthread Apiaries:\s*We will close the colonies in for the spray — “Closing at dusk”/);
     await saveScreenshot(grower.page, 'sprays-grower-sees-answer');
 
     for (const watched of [keeper, applicator, grower]) {

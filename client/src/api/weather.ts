@@ -23,10 +23,13 @@ export const weatherApi = {
   chill: (id: string) => http.get<{ chill: ChillDto }>(`/weather/stations/${id}/chill`),
 
   /**
-   * Uploads a CSV of daily temperatures, reporting progress (0–100). fetch cannot report
+   * Uploads a CSV of daily temperatures (or forecast lows), reporting progress (0–100). fetch cannot report
    * upload progress, so this one call uses XMLHttpRequest; errors become ApiError as in http.ts.
    */
-  async upload(id: string, file: File, options: { unit: TemperatureUnit; skipBadLines: boolean }, onProgress: (percent: number) => void): Promise<UploadResult> {
+  async upload(
+    id: string, file: File, options: { unit: TemperatureUnit; skipBadLines: boolean }, onProgress: (percent: number) => void,
+    kind: 'temperatures' | 'forecast-lows' = 'temperatures',
+  ): Promise<UploadResult> {
     const token = await csrfToken();
     const form = new FormData();
     form.append('unit', options.unit);
@@ -34,7 +37,7 @@ export const weatherApi = {
     form.append('file', file);
     return new Promise((resolve, reject) => {
       const xhr = new XMLHttpRequest();
-      xhr.open('POST', `${clientConfig.apiBase}/weather/stations/${id}/temperatures/upload`);
+      xhr.open('POST', `${clientConfig.apiBase}/weather/stations/${id}/${kind}/upload`);
       xhr.setRequestHeader('X-CSRF-Token', token);
       xhr.setRequestHeader('Accept', 'application/json');
       xhr.upload.onprogress = (e) => { if (e.lengthComputable) onProgress(Math.round((e.loaded / e.total) * 100)); };

@@ -177,6 +177,8 @@ export async function startPaymentsStandIn(options: { port?: number; secretKey: 
 
   app.use('/v1', api);
 
+  app.get('/favicon.ico', (_req, res) => res.status(204).end());
+
   // The card step: a page of our own, clearly a test.
   app.get('/pay/:id', (req, res) => {
     const session = sessions.get(req.params.id);

@@ -4,38 +4,7 @@
 // frost critical temperatures of flower buds (both editable, seeded with published values
 // and labelled with their source), and what each apiary's bloom-window digest has covered.
 import type { MigrationContext } from '../migrator.js';
-
-const CORNELL = 'Cornell / UMass fruit newsletters (apple, base 43 °F from March 1): published range';
-const BLOOM_NOTE = 'Interpolated between the published pink and petal-fall ranges (from memory; no single published value): check locally';
-const WSU = 'WSU Extension (EB0913 apple, EB0978 pear, EB1128 sweet cherry), as republished by Penn State Extension "Orchard Frost – Critical Temperatures for Various Fruits"';
-
-// crop, stage label, stage key (matching a degree-day stage, when one does), 10% kill °F, 90% kill °F
-const frostRows: Array<[string, string, string | null, number, number]> = [
-  ['apple', 'Silver tip', null, 15, 2],
-  ['apple', 'Green tip', 'green-tip', 18, 10],
-  ['apple', 'Half-inch green', null, 23, 15],
-  ['apple', 'Tight cluster', null, 27, 21],
-  ['apple', 'First pink', 'pink', 28, 24],
-  ['apple', 'Full pink to full bloom', 'bloom', 28, 25],
-  ['apple', 'Post bloom', 'petal-fall', 28, 25],
-  ['pear', 'Scales separating', null, 15, 0],
-  ['pear', 'Blossom buds exposed', null, 20, 6],
-  ['pear', 'Tight cluster', null, 24, 15],
-  ['pear', 'First white', null, 25, 19],
-  ['pear', 'Full white', 'pink', 26, 22],
-  ['pear', 'First bloom', 'bloom', 27, 23],
-  ['pear', 'Full bloom', null, 28, 24],
-  ['pear', 'Post bloom', 'petal-fall', 28, 24],
-  ['sweet-cherry', 'First swelling', null, 17, 5],
-  ['sweet-cherry', 'Side green', null, 22, 9],
-  ['sweet-cherry', 'Green tip', 'green-tip', 25, 14],
-  ['sweet-cherry', 'Tight cluster', null, 26, 17],
-  ['sweet-cherry', 'Open cluster', null, 27, 21],
-  ['sweet-cherry', 'First white', 'pink', 27, 24],
-  ['sweet-cherry', 'First bloom', 'bloom', 28, 25],
-  ['sweet-cherry', 'Full bloom', null, 28, 25],
-  ['sweet-cherry', 'Post bloom', 'petal-fall', 28, 25],
-];
+import { insertPublishedReference } from '../../modules/bloom/published-reference.js';
 
 export async function up({ sequelize }: MigrationContext) {
   await sequelize.query(`
@@ -106,12 +75,6 @@ export async function up({ sequelize }: MigrationContext) {
     CREATE UNIQUE INDEX crop_stage_thresholds_uq
       ON crop_stage_thresholds (coalesce(farm_id, '00000000-0000-0000-0000-000000000000'::uuid), crop, coalesce(variety, ''), stage);
 
-    INSERT INTO crop_stage_thresholds (crop, stage, label, sort_order, base_f, dd_low_f, dd_high_f, source) VALUES
-      ('apple', 'green-tip', 'Green tip', 1, 43, 100, 120, :cornell),
-      ('apple', 'pink', 'Pink', 2, 43, 267, 316, :cornell),
-      ('apple', 'bloom', 'Bloom', 3, 43, 330, 400, :bloomNote),
-      ('apple', 'petal-fall', 'Petal fall', 4, 43, 439, 523, :cornell);
-
     -- Critical temperatures of flower buds, in °F as published (10% and 90% kill, held 30 minutes).
     CREATE TABLE frost_critical_temperatures (
       id uuid PRIMARY KEY DEFAULT gen_random_uuid(),
@@ -133,15 +96,8 @@ export async function up({ sequelize }: MigrationContext) {
       apiary_id uuid PRIMARY KEY REFERENCES organizations(id) ON DELETE CASCADE,
       reported_through timestamptz NOT NULL
     );
-  `, { replacements: { cornell: CORNELL, bloomNote: BLOOM_NOTE } });
-
-  for (const [index, [crop, label, stage, kill10, kill90]] of frostRows.entries()) {
-    await sequelize.query(
-      `INSERT INTO frost_critical_temperatures (crop, stage_label, stage, sort_order, kill10_f, kill90_f, source)
-       VALUES (:crop, :label, :stage, :sortOrder, :kill10, :kill90, :source)`,
-      { replacements: { crop, label, stage, sortOrder: index, kill10, kill90, source: WSU } },
-    );
-  }
+  `);
+  await insertPublishedReference(sequelize);
 }
 
 export async function down({ sequelize }: MigrationContext) {

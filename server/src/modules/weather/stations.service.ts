@@ -10,7 +10,7 @@ import { TEMPERATURE_BOUNDS_C } from '../../../../shared/schemas/weather.js';
 import type { GeoPoint } from '../../../../shared/schemas/common.js';
 import { fahrenheitToCelsius } from '../../../../shared/domain/units.js';
 import { badRequest, conflict, notFound } from '../../errors/http-errors.js';
-import { lineErrorFields, parseTemperatureCsv } from './temperature-csv.js';
+import { lineErrorFields, parseForecastLowCsv, parseTemperatureCsv } from './temperature-csv.js';
 
 interface StationRow {
   id: string; farm_id: string; name: string; location_json: GeoPoint; time_zone: string; days: string;
@@ -130,6 +130,31 @@ export function createStationsService(ctx: AppContext) {
       }
       if (!days.length) throw badRequest('No line of the file could be saved.', { file: 'has no valid temperature lines' });
       const replaced = await sequelize.transaction((transaction) => upsertDays(id, userId, 'upload', days, transaction));
+      return { saved: days.length, replaced, skipped: errors };
+    },
+
+    /** Forecast lows from a CSV (date, low), with the same all-or-nothing rule as temperatures. */
+    async uploadForecastLows(farmId: string, userId: string, id: string, file: Buffer, options: { unit: TemperatureUnit; skipBadLines: boolean }): Promise<UploadResult> {
+      await get(farmId, id);
+      const { days, errors } = parseForecastLowCsv(file, options.unit);
+      if (errors.length && !options.skipBadLines) {
+        const lines = new Set(errors.map((e) => e.line)).size;
+        throw badRequest(`${lines} line${lines === 1 ? ' has' : 's have'} errors, so nothing was saved. Correct the file, or upload it again accepting that those lines are skipped.`, lineErrorFields(errors));
+      }
+      if (!days.length) throw badRequest('No line of the file could be saved.', { file: 'has no valid forecast lines' });
+      const replaced = await sequelize.transaction(async (transaction) => {
+        let count = 0;
+        for (const d of days) {
+          const [row] = await sequelize.query<{ inserted: boolean }>(
+            `INSERT INTO forecast_lows (station_id, day, low_c, entered_by) VALUES (:id, :day, :lowC, :userId)
+             ON CONFLICT (station_id, day) DO UPDATE SET low_c = EXCLUDED.low_c, entered_by = EXCLUDED.entered_by, updated_at = now()
+             RETURNING (xmax = 0) AS inserted`,
+            { replacements: { id, day: d.day, lowC: d.lowC, userId }, type: QueryTypes.SELECT, transaction },
+          );
+          if (!row.inserted) count++;
+        }
+        return count;
+      });
       return { saved: days.length, replaced, skipped: errors };
     },
 

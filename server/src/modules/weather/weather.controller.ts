@@ -37,6 +37,12 @@ export function createWeatherController(stations: StationsService, chill: Return
       const fields = parseOrThrow(temperatureUploadFields, req.body ?? {});
       res.json({ result: await stations.upload(farmOf(req), currentUser(req).id, idOf(req), req.file.buffer, fields) });
     },
+    async uploadForecastLows(req: Request, res: Response) {
+      await stations.get(farmOf(req), idOf(req));
+      if (!req.file) throw badRequest('Choose a CSV file to upload.', { file: 'is required' });
+      const fields = parseOrThrow(temperatureUploadFields, req.body ?? {});
+      res.json({ result: await stations.uploadForecastLows(farmOf(req), currentUser(req).id, idOf(req), req.file.buffer, fields) });
+    },
     async forecastLows(req: Request, res: Response) {
       res.json({ forecastLows: await stations.forecastLows(farmOf(req), idOf(req)) });
     },

@@ -27,6 +27,7 @@ export function weatherRoutes(ctx: AppContext, stations: StationsService = creat
   router.put('/stations/:id/temperatures/:day', allow(policy, 'enterTemperatures'), validate({ params: stationDayParams, body: dailyTemperatureBody }), c.enterDay);
   router.post('/stations/:id/temperatures/upload', allow(policy, 'uploadTemperatures'), validate({ params: idParams }), upload.single('file'), c.upload);
   router.get('/stations/:id/forecast-lows', allow(policy, 'read'), validate({ params: idParams }), c.forecastLows);
+  router.post('/stations/:id/forecast-lows/upload', allow(policy, 'enterForecastLows'), validate({ params: idParams }), upload.single('file'), c.uploadForecastLows);
   router.put('/stations/:id/forecast-lows/:day', allow(policy, 'enterForecastLows'), validate({ params: stationDayParams, body: forecastLowBody }), c.enterForecastLow);
   router.get('/stations/:id/chill', allow(policy, 'read'), validate({ params: idParams, query: chillQuery }), c.chill);
   return router;
