@@ -22,6 +22,8 @@ describe('hive request to delivery in the browser', () => {
     browser = await launchBrowser();
   });
   afterAll(async () => {
+    // Where each page stood at the end, for a failed run.
+    for (const [i, p] of pages.entries()) await saveScreenshot(p.page, `requests-flow-end-${i}`).catch(() => {});
     await browser?.close();
     await t?.stop();
   });
@@ -58,7 +60,7 @@ describe('hive request to delivery in the browser', () => {
     await poll(() => k.getByText(/km from your nearest yard/).first().isVisible()).toBe(true);
     await k.getByRole('link', { name: 'Galas at first bloom' }).click();
     await k.waitForURL(requestUrl);
-    expect(await k.getByText('gate code shown once your agreement is confirmed by both sides').isVisible()).toBe(true);
+    await poll(() => k.getByText('gate code shown once your agreement is confirmed by both sides').isVisible()).toBe(true);
     await k.getByLabel(/Colonies \(up to 60 still open\)/).fill('40');
     await k.getByRole('button', { name: 'Commit colonies' }).click();
     await poll(() => k.getByText(/40 colonies · accepted/).isVisible()).toBe(true);
@@ -73,7 +75,7 @@ describe('hive request to delivery in the browser', () => {
     await poll(() => g.getByText('Fully committed', { exact: true }).isVisible()).toBe(true); // live on the grower's page
 
     // Both sides confirm the first beekeeper's agreement.
-    await k.getByRole('link', { name: 'Agreement' }).click();
+    await k.getByRole('link', { name: 'Open the agreement' }).click();
     await k.waitForURL(/\/agreements\//);
     const agreementUrl = k.url();
     await k.getByRole('button', { name: 'Confirm agreement' }).click();
@@ -81,7 +83,7 @@ describe('hive request to delivery in the browser', () => {
     await g.goto(agreementUrl);
     await g.getByRole('button', { name: 'Confirm agreement' }).click();
     await poll(() => g.getByText('Confirmed by both', { exact: true }).isVisible()).toBe(true);
-    await poll(() => g.locator('[data-state="scheduled"]').count()).toBe(2);
+    await poll(() => g.locator('[data-state="scheduled"]').count()).toBe(1); // one drop site, planned for all 60
     await saveScreenshot(g, 'requests-agreement-confirmed');
 
     // The crew, on a 360 px phone with its position, marks the North lane delivered.
@@ -91,7 +93,7 @@ describe('hive request to delivery in the browser', () => {
     await c.goto(`${t.baseUrl}/placements`);
     await c.getByRole('link', { name: /North Galas drop/ }).first().click();
     await c.waitForURL(/\/placements\//);
-    expect(await c.getByText('7719').isVisible()).toBe(true); // the gate code, now that the agreement is confirmed
+    await poll(() => c.getByText('7719').isVisible()).toBe(true); // the gate code, now that the agreement is confirmed
     const deliver = c.getByRole('button', { name: 'Mark delivered' });
     const box = await deliver.boundingBox();
     expect(box!.height).toBeGreaterThanOrEqual(44); // a large touch target
@@ -111,5 +113,5 @@ describe('hive request to delivery in the browser', () => {
       expect(p.consoleErrors).toEqual([]);
       expect(p.externalRequests).toEqual([]);
     }
-  });
+  }, 180_000);
 });

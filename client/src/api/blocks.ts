@@ -3,7 +3,7 @@
 import { http } from './http';
 import { connectSocket } from './socket';
 import type { BloomRevisedEvent, BlockBody, BlockDto, BlockForecastDto, BlockPatch, BloomWindowBody, BloomWindowDto, ForecastQuery } from '@shared/schemas/blocks';
-import type { FrostCriticalDto, StageThresholdDto } from '@shared/schemas/weather';
+import type { FrostCriticalDto, StageThresholdBody, StageThresholdDto } from '@shared/schemas/weather';
 
 export const blocksApi = {
   list: () => http.get<{ blocks: BlockDto[] }>('/blocks'),
@@ -24,3 +24,11 @@ export function onBloomRevised(handler: (event: BloomRevisedEvent) => void): () 
   socket.on('bloom:revised', handler);
   return () => socket.off('bloom:revised', handler);
 }
+
+export const referenceApi = {
+  addThreshold: (body: StageThresholdBody) => http.post<{ threshold: StageThresholdDto }>('/bloom/stage-thresholds', body),
+  updateThreshold: (id: string, body: { label?: string; ddLowF?: number; ddHighF?: number; source?: string }) =>
+    http.patch<{ threshold: StageThresholdDto }>(`/bloom/stage-thresholds/${id}`, body),
+  updateFrostCritical: (id: string, body: { kill10F?: number; kill90F?: number; source?: string }) =>
+    http.patch<{ critical: FrostCriticalDto }>(`/bloom/frost-critical/${id}`, body),
+};

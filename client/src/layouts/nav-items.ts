@@ -15,6 +15,7 @@ export const navItems: NavItem[] = [
   { label: 'Season overview', icon: 'pi pi-compass', to: 'home', sides: ['farm', 'apiary', 'admin'] },
   { label: 'Blocks', icon: 'pi pi-th-large', to: 'blocks', sides: ['farm'] },
   { label: 'Weather', icon: 'pi pi-cloud', to: 'weather-stations', sides: ['farm'] },
+  { label: 'Stage thresholds', icon: 'pi pi-sliders-h', to: 'stage-thresholds', sides: ['farm', 'admin'] },
   { label: 'Sprays', icon: 'pi pi-filter', to: 'sprays', sides: ['farm'] },
   { label: 'Hive requests', icon: 'pi pi-send', to: 'requests', sides: ['farm', 'apiary'] },
   { label: 'Agreements', icon: 'pi pi-file-check', to: 'agreements', sides: ['farm', 'apiary'] },

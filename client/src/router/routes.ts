@@ -18,6 +18,7 @@ export type RouteName =
   | 'block-new'
   | 'block'
   | 'block-edit'
+  | 'stage-thresholds'
   | 'weather-stations'
   | 'weather-station'
   | 'sprays'
@@ -65,6 +66,7 @@ export const appRoutes: RouteRecordRaw[] = [
   { path: 'blocks/new', name: 'block-new', component: () => import('@/pages/blocks/BlockEditPage.vue'), meta: { title: 'New block', sides: ['farm'], roles: ['farm:owner', 'farm:manager'] } },
   { path: 'blocks/:id', name: 'block', component: () => import('@/pages/blocks/BlockDetailPage.vue'), meta: { title: 'Block', sides: ['farm'] } },
   { path: 'blocks/:id/edit', name: 'block-edit', component: () => import('@/pages/blocks/BlockEditPage.vue'), meta: { title: 'Change block', sides: ['farm'], roles: ['farm:owner', 'farm:manager'] } },
+  { path: 'bloom/thresholds', name: 'stage-thresholds', component: () => import('@/pages/blocks/StageThresholdsPage.vue'), meta: { title: 'Stage thresholds', sides: ['farm', 'admin'] } },
   { path: 'weather', name: 'weather-stations', component: () => import('@/pages/weather/StationListPage.vue'), meta: { title: 'Weather stations', sides: ['farm'] } },
   { path: 'weather/:id', name: 'weather-station', component: () => import('@/pages/weather/StationDetailPage.vue'), meta: { title: 'Weather station', sides: ['farm'] } },
   { path: 'organization/members', name: 'members', component: () => import('@/pages/organization/MembersPage.vue'), meta: { title: 'Members', sides: ['farm', 'apiary'], roles: ['farm:owner', 'apiary:owner'] } },

@@ -12,6 +12,7 @@ import { queueNames } from '../../jobs/queue-names.js';
 import { notFound } from '../../errors/http-errors.js';
 import { toBloomWindowDto, type BloomWindowRow } from '../blocks/block-rows.js';
 import { apiariesFollowingBlock, followingApiariesSql } from './bloom-audience.js';
+import { bloomWindowChanged } from '../conflicts/conflict-triggers.js';
 
 const windowSelect = `
   SELECT w.id, w.block_id, w.season, to_char(w.bloom_start, 'YYYY-MM-DD') AS bloom_start, to_char(w.full_bloom, 'YYYY-MM-DD') AS full_bloom,
@@ -75,7 +76,7 @@ export function createBloomWindowsService(ctx: AppContext) {
         // digest, so revisions made meanwhile share one e-mail and later jobs find nothing new.
         await ctx.jobs.send(queueNames.bloomDigest, { apiaryId }, { startAfter: ctx.config.bloomDigestDelaySeconds, retryLimit: 5, retryDelay: 30 });
       }
-      await (await import('../conflicts/conflict-triggers.js')).bloomWindowChanged(ctx, blockId); // re-run the spray conflict check
+      await bloomWindowChanged(ctx, blockId); // the spray conflict check reads bloom windows
       return window;
     },
 

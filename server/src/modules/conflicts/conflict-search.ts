@@ -51,10 +51,11 @@ const sprayedCte = `
 const exposureSql = `
   WITH ${sprayedCte},
   near_sites AS (
-    SELECT DISTINCT ON (d.id) d.id, d.request_id, d.name, d.block_id, d.colonies_planned, d.location,
-      ST_Distance(d.location::geography, s.geom::geography) AS distance_m
-    FROM sprayed s JOIN drop_sites d ON ST_DWithin(d.location::geography, s.geom::geography, :bufferM)
-    ORDER BY d.id, ST_Distance(d.location::geography, s.geom::geography)
+    -- The buffer test is on the spheroid; the distance shown is on the sphere (within 0.5 %, and cheaper).
+    SELECT DISTINCT ON (d.id) d.id, d.request_id, d.name, d.block_id, d.colonies_planned, d.location, x.distance_m
+    FROM sprayed s JOIN drop_sites d ON ST_DWithin(d.location::geography, s.geom::geography, :bufferM),
+      LATERAL (SELECT ST_Distance(d.location::geography, s.geom::geography, false) AS distance_m) x
+    ORDER BY d.id, x.distance_m
   ),
   found AS (
     SELECT n.id AS drop_site_id, a.id AS agreement_id, a.state AS agreement_state, a.apiary_id, a.notice_hours,
