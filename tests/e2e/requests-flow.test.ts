@@ -91,7 +91,7 @@ describe('hive request to delivery in the browser', () => {
     await crew.context.setGeolocation({ latitude: m.lat + 0.0002, longitude: m.lon });
     const c = crew.page;
     await c.goto(`${t.baseUrl}/placements`);
-    await c.getByRole('link', { name: /North Galas drop/ }).first().click();
+    await c.getByRole('link', { name: /North Galas/ }).first().click();
     await c.waitForURL(/\/placements\//);
     await poll(() => c.getByText('7719').isVisible()).toBe(true); // the gate code, now that the agreement is confirmed
     const deliver = c.getByRole('button', { name: 'Mark delivered' });

@@ -9,8 +9,3 @@ export const dashboardApi = {
   timeline: (season?: number) => http.get<SeasonTimeline>('/dashboard/timeline', { query: { season } }),
   map: (season?: number) => http.get<SeasonMap>('/dashboard/map', { query: { season } }),
 };
-
-/** The map tile server (empty: maps are drawn without a base layer). */
-export const mapSettingsApi = {
-  get: () => http.get<{ mapTileUrl: string; mapAttribution: string }>('/meta'),
-};
