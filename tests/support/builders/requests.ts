@@ -1,5 +1,10 @@
 // Builders for the hive request flow: a small market (a farm with a block in bloom, two
-// apiaries with yards, people of each role) and request payloads as the client sends them.
+// apiaries with yards, people of each role), request payloads as the client sends them,
+// and the finishing touches the core builders leave out (clauses, one-sided confirmation,
+// audit entries).
+import { QueryTypes } from 'sequelize';
+import { Organization } from '../../../server/src/db/models/organization.model.js';
+import { agreementClauses } from '../../../shared/domain/agreement-clauses.js';
 import { buildOrganization, buildUser } from './accounts.js';
 import { buildBlock, buildBloomWindow, buildYard } from './season.js';
 import type { RequestBody } from '../../../shared/schemas/requests.js';
@@ -51,4 +56,32 @@ export function requestPayload(blockId: string, overrides: Partial<RequestBody> 
     ],
     ...overrides,
   };
+}
+
+/** Writes our standard clauses into an agreement made by buildAgreement, from its own terms. */
+export async function fillAgreementClauses(agreement: { id: string }) {
+  const sequelize = Organization.sequelize!;
+  const [t] = await sequelize.query<Record<string, number | string | null>>('SELECT * FROM agreements WHERE id = :id', { replacements: { id: agreement.id }, type: QueryTypes.SELECT });
+  const clauses = agreementClauses({
+    colonies: t.colonies as number, minFramesOfBees: t.min_frames_of_bees as number, minFramesOfBrood: t.min_frames_of_brood as number | null,
+    pricePerColonyCents: t.price_per_colony_cents as number, currency: String(t.currency).trim(), depositShareBp: t.deposit_share_bp as number,
+    balanceDueDays: t.balance_due_days as number, lateInterestBpPerMonth: t.late_interest_bp_per_month as number, belowMinimumRateBp: t.below_minimum_rate_bp as number,
+    extraMoveFeeCents: t.extra_move_fee_cents as number, noticeHours: t.notice_hours as number, removalNoticeHours: t.removal_notice_hours as number,
+  });
+  await sequelize.query('UPDATE agreements SET clauses = :clauses::jsonb WHERE id = :id', { replacements: { id: agreement.id, clauses: JSON.stringify(clauses) } });
+}
+
+/** Records who confirmed an agreement for one side, and when. */
+export async function confirmAgreementSide(agreement: { id: string }, side: 'farm' | 'apiary', by: { id: string }, at: Date) {
+  await Organization.sequelize!.query(`UPDATE agreements SET ${side}_confirmed_by = :by, ${side}_confirmed_at = :at WHERE id = :id`, {
+    replacements: { id: agreement.id, by: by.id, at: at.toISOString() },
+  });
+}
+
+/** An audit-trail entry on a request. */
+export async function buildRequestEvent(request: { id: string }, actor: { id: string } | null, action: string, at: Date, detail: Record<string, unknown> = {}) {
+  await Organization.sequelize!.query(
+    'INSERT INTO hive_request_events (request_id, actor_id, action, detail, created_at) VALUES (:requestId, :actorId, :action, :detail::jsonb, :at)',
+    { replacements: { requestId: request.id, actorId: actor?.id ?? null, action, detail: JSON.stringify(detail), at: at.toISOString() } },
+  );
 }

@@ -197,7 +197,8 @@ export async function buildSignedSeason(attrs: {
   const colonies = attrs.colonies ?? 40;
   const block = await buildBlock({ farm: attrs.farm, lon, lat, acres: colonies / 2 });
   if (attrs.bloom) await buildBloomWindow({ block, ...attrs.bloom });
-  const request = await buildRequest({ farm: attrs.farm, blocks: [{ block, colonies }], state: 'filled', onSite: attrs.onSite, ...attrs });
+  const { farm, apiary: _apiary, lon: _lon, lat: _lat, colonies: _colonies, delivered: _delivered, bloom: _bloom, onSite, ...terms } = attrs;
+  const request = await buildRequest({ farm, blocks: [{ block, colonies }], state: 'filled', onSite, ...terms });
   const dropSite = await buildDropSite({ request, block, lon, lat, coloniesPlanned: colonies });
   const commitment = await buildCommitment({ request, apiary: attrs.apiary, colonies });
   const agreement = await buildAgreement({ commitment });
