@@ -5,7 +5,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
   test: {
     pool: 'forks',
-    maxWorkers: 2,
+    // Test files mostly wait on the database, sockets and the browser, so more files than cores run at once.
+    maxWorkers: 4,
     projects: [
       { test: { name: 'domain', include: ['tests/domain/**/*.test.ts'], environment: 'node' } },
       { test: { name: 'api', include: ['tests/api/**/*.test.ts', 'tests/realtime/**/*.test.ts'], environment: 'node', testTimeout: 30_000, hookTimeout: 60_000 } },

@@ -46,8 +46,11 @@ describe('spray plans and live alerts in the browser', () => {
 
     const applicator = await openWatchedPage(browser);
     await signInThroughPage(applicator.page, t.baseUrl, 'applicator@sprays-e2e.test');
-    await applicator.page.goto(`${t.baseUrl}/sprays/new`);
     const page = applicator.page;
+    // The block picker fills from GET /api/blocks: wait for it before opening the picker.
+    const blocksLoaded = page.waitForResponse((res) => new URL(res.url()).pathname === '/api/blocks' && res.ok(), slow);
+    await page.goto(`${t.baseUrl}/sprays/new`);
+    await blocksLoaded;
     await page.locator('.p-multiselect').first().click();
     await page.getByRole('option', { name: 'Cedar Row' }).click();
     await page.keyboard.press('Escape');
