@@ -15,6 +15,7 @@ declare module 'vue' {
     AgreementCalendarLink: typeof import('./src/components/agreements/AgreementCalendarLink.vue')['default']
     AlertBell: typeof import('./src/components/alerts/AlertBell.vue')['default']
     AlertCard: typeof import('./src/components/alerts/AlertCard.vue')['default']
+    AppChart: typeof import('./src/components/common/AppChart.vue')['default']
     AuthCard: typeof import('./src/components/auth/AuthCard.vue')['default']
     Badge: typeof import('primevue/badge')['default']
     BlockBloomHistory: typeof import('./src/components/blocks/BlockBloomHistory.vue')['default']

@@ -24,19 +24,23 @@ try {
   const clientDist = process.env.POLLENPACT_CLIENT_DIST ?? 'dist/client';
   if (process.env.POLLENPACT_SKIP_BUILD !== '1') ensureClientBuilt({ force: true, outDir: clientDist });
   log(`set-up took ${((Date.now() - started) / 1000).toFixed(1)} s; running the suites`);
-  const result = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', ...process.argv.slice(2)], {
-    cwd: repoRoot,
-    stdio: 'inherit',
-    env: {
-      ...process.env,
-      TEST_TEMPLATE_DATABASE_URL: templateUrl,
-      TEST_ADMIN_DATABASE_URL: superuserUrl(),
-      CHROMIUM_PATH: chromium,
-      PG_BIN_DIR: cluster.bin,
-      CLIENT_DIST: clientDist,
-    },
-  });
-  code = result.status ?? 1;
+  const env = {
+    ...process.env,
+    TEST_TEMPLATE_DATABASE_URL: templateUrl,
+    TEST_ADMIN_DATABASE_URL: superuserUrl(),
+    CHROMIUM_PATH: chromium,
+    PG_BIN_DIR: cluster.bin,
+    CLIENT_DIST: clientDist,
+  };
+  // Two passes: domain and API files many at a time, then the browser files with the
+  // machine to themselves (Chromium is the heaviest part on two cores).
+  const vitest = (args) =>
+    spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--passWithNoTests', ...args, ...process.argv.slice(2)], {
+      cwd: repoRoot, stdio: 'inherit', env,
+    }).status ?? 1;
+  const first = vitest(['--project', 'domain', '--project', 'api']);
+  const second = vitest(['--project', 'e2e', '--maxWorkers', '2']);
+  code = first || second;
 } finally {
   if (cluster.startedHere) stopCluster(cluster);
 }
