@@ -47,6 +47,13 @@ describe('hive request to delivery in the browser', () => {
     await colonies.blur();
     await g.getByLabel('Title').fill('Galas at first bloom');
     await g.getByRole('button', { name: 'Add a drop site' }).click();
+    // The drop site starts at the block; a click on the map moves it there.
+    const latitude = g.getByLabel('Latitude');
+    const startLatitude = Number((await latitude.inputValue()).replace(/,/g, ''));
+    const siteMap = g.getByRole('region', { name: /click to place the chosen drop site/ });
+    const mapBox = (await siteMap.boundingBox())!;
+    await siteMap.click({ position: { x: mapBox.width / 2, y: mapBox.height / 4 } });
+    await poll(async () => Number((await latitude.inputValue()).replace(/,/g, ''))).toBeGreaterThan(startLatitude);
     await g.getByLabel('Gate code (private)').fill('7719');
     await g.getByRole('button', { name: 'Save and open for commitments' }).click();
     await g.waitForURL(/\/requests\/[0-9a-f-]{36}$/);
