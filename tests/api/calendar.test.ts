@@ -4,6 +4,7 @@ import { parse } from 'csv-parse/sync';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { apiClient, signedInClient, type ApiClient } from '../support/api-client.js';
 import { buildMarket, requestPayload } from '../support/builders/requests.js';
+import { planSpray, sprayInput } from '../support/builders/sprays.js';
 
 /** Unfolds RFC 5545 content lines (CRLF followed by a space continues the line). */
 const unfold = (ics: string) => ics.replace(/\r\n[ \t]/g, '').split('\r\n');
@@ -31,6 +32,20 @@ describe('calendar feed and exports', () => {
     await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 36, deliveredAt: '2026-11-30T15:30:00.000Z' }).expect(200);
   });
   afterAll(async () => { await t?.stop(); });
+
+  it('puts spray windows in the farm\'s feed and, when the spray raised an alert for it, in the beekeeper\'s', async () => {
+    const startsAt = new Date(Date.now() + 3 * 86_400_000);
+    await planSpray(t.context, m.people.grower, sprayInput({ blockIds: [m.block.id], startsAt, productName: 'Feed Test 4F' }));
+    const feedOf = async (client: ApiClient) => {
+      const { url } = (await client.post('/api/calendar/token')).body;
+      return unfold((await (await apiClient(t.app)).get(new URL(url).pathname).expect(200)).text);
+    };
+    const sprayLine = /^SUMMARY:Spray planned: Feed Test 4F · North Galas/;
+    expect((await feedOf(grower)).some((l) => sprayLine.test(l))).toBe(true);
+    expect((await feedOf(keeper)).some((l) => sprayLine.test(l))).toBe(true);
+    await t.context.sequelize.query("UPDATE spray_plans SET state = 'cancelled' WHERE product_name = 'Feed Test 4F'");
+    expect((await feedOf(grower)).some((l) => sprayLine.test(l))).toBe(false);
+  });
 
   it('gives each user a private feed URL that works without a session and can be replaced', async () => {
     expect((await crew.get('/api/calendar')).body.url).toBeNull();

@@ -74,6 +74,26 @@ export function createCalendarService(ctx: AppContext) {
         calendar.createEvent({ id: `placement-${p.id}-delivered@pollenpact`, start: new Date(p.delivered_at!), end: new Date(new Date(p.delivered_at!).getTime() + HOUR), summary: `Delivered: ${p.colonies_delivered} colonies at ${p.site}`, location: geo });
         if (p.picked_up_at) calendar.createEvent({ id: `placement-${p.id}-picked-up@pollenpact`, start: new Date(p.picked_up_at), end: new Date(new Date(p.picked_up_at).getTime() + HOUR), summary: `Picked up: ${p.colonies_picked_up} colonies at ${p.site}`, location: geo });
       }
+      // Spray windows (with their residual time): a farm's own, and for an apiary business
+      // those that raised an alert for it and are not resolved.
+      const sprays = await selectRows<{ id: string; product_name: string; state: string; exposure: string; blocks: string }>(
+        ctx,
+        `SELECT s.id, s.product_name, s.state, s.exposure_window::text AS exposure,
+           (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
+         FROM spray_plans s
+         WHERE s.state <> 'cancelled' AND (s.farm_id = :org
+           OR EXISTS (SELECT 1 FROM alerts al WHERE al.spray_plan_id = s.id AND al.apiary_id = :org AND al.state <> 'resolved'))`,
+        { org },
+      );
+      for (const spray of sprays) {
+        const w = parseRange(spray.exposure);
+        if (!w?.from || !w.to) continue;
+        calendar.createEvent({
+          id: `spray-${spray.id}@pollenpact`, start: new Date(w.from), end: new Date(w.to),
+          summary: `Spray ${spray.state === 'applied' ? 'applied' : 'planned'}: ${spray.product_name} · ${spray.blocks ?? ''}`,
+          description: 'Spray window with its residual time. The product label is the law; local regulations and licensed applicators decide.',
+        });
+      }
       return calendar.toString();
     },
   };
