@@ -26,7 +26,6 @@ declare module 'vue' {
     BlockStageTable: typeof import('./src/components/blocks/BlockStageTable.vue')['default']
     BlockThresholdTable: typeof import('./src/components/blocks/BlockThresholdTable.vue')['default']
     Button: typeof import('primevue/button')['default']
-    Chart: typeof import('primevue/chart')['default']
     Checkbox: typeof import('primevue/checkbox')['default']
     Column: typeof import('primevue/column')['default']
     ConfirmDialog: typeof import('primevue/confirmdialog')['default']
