@@ -4,7 +4,6 @@
 // season shifted so bloom is happening around world.today, published bloom windows (one
 // revised), and a forecast low that puts one block under a frost warning.
 import { QueryTypes } from 'sequelize';
-import { Organization } from '../../server/src/db/models/organization.model.js';
 import { buildBlock, buildBloomWindow, squareOutline, type BuiltBlock } from '../../tests/support/builders/season.js';
 import { buildDailyTemperatures, buildForecastLow, buildStation, syntheticSpring } from '../../tests/support/builders/weather.js';
 import { accumulateDegreeDays } from '../../shared/domain/degree-days.js';
@@ -12,6 +11,7 @@ import { predictStages, suggestBloomWindow, type StageThreshold } from '../../sh
 import { celsiusToFahrenheit } from '../../shared/domain/units.js';
 import { insertPublishedReference } from '../../server/src/modules/bloom/published-reference.js';
 import type { SeedWorld } from '../seed-world.js';
+import { builderSequelize } from '../../tests/support/builders/builder-database.js';
 
 const DAY = 86_400_000;
 const isoDay = (d: Date) => d.toISOString().slice(0, 10);
@@ -24,7 +24,7 @@ export interface SeedBlocks {
 }
 
 async function appleThresholds(): Promise<StageThreshold[]> {
-  const rows = await Organization.sequelize!.query<{ stage: string; label: string; dd_low_f: number; dd_high_f: number }>(
+  const rows = await builderSequelize().query<{ stage: string; label: string; dd_low_f: number; dd_high_f: number }>(
     "SELECT stage, label, dd_low_f, dd_high_f FROM crop_stage_thresholds WHERE farm_id IS NULL AND crop = 'apple' AND variety IS NULL ORDER BY sort_order",
     { type: QueryTypes.SELECT },
   );
@@ -32,7 +32,7 @@ async function appleThresholds(): Promise<StageThreshold[]> {
 }
 
 async function setBlockForecast(block: BuiltBlock, stationId: string, degreeDayStart: string, variety: string | null, pollinizer: string | null) {
-  await Organization.sequelize!.query(
+  await builderSequelize().query(
     'UPDATE blocks SET weather_station_id = :stationId, degree_day_start = :start, variety = :variety, pollinizer_variety = :pollinizer, year_planted = 2014, trees_per_acre = 900 WHERE id = :id',
     { replacements: { id: block.id, stationId, start: degreeDayStart, variety, pollinizer } },
   );
@@ -44,7 +44,7 @@ export async function seedBlocks(world: SeedWorld) {
   const degreeDayStart = isoDay(seasonStart);
   const { farm, farm2 } = world.organizations;
   // Reloading the demo empties every table, the published reference data included.
-  await insertPublishedReference(Organization.sequelize!);
+  await insertPublishedReference(builderSequelize());
 
   const bench = await buildStation({ farm, name: 'Larkspur Bench mast', lon: -119.905, lat: 44.905 });
   const ridge = await buildStation({ farm: farm2, name: 'Cinder Ridge hut', lon: -119.82, lat: 44.95 });

@@ -4,14 +4,14 @@
 // "issue the invoice" step). Own small seasons on their own blocks, all laid relative to
 // world.today, so the statuses read the same on any day the demo is loaded.
 import { QueryTypes } from 'sequelize';
-import { Organization } from '../../server/src/db/models/organization.model.js';
 import { buildBillableSeason, buildInvoice, buildManualPayment } from '../../tests/support/builders/invoices.js';
 import type { SeedWorld } from '../seed-world.js';
+import { builderSequelize } from '../../tests/support/builders/builder-database.js';
 
 const DAY = 86_400_000;
 
 async function nameBlock(block: { id: string }, name: string) {
-  await Organization.sequelize!.query('UPDATE blocks SET name = :name WHERE id = :id', { replacements: { id: block.id, name }, type: QueryTypes.UPDATE });
+  await builderSequelize().query('UPDATE blocks SET name = :name WHERE id = :id', { replacements: { id: block.id, name }, type: QueryTypes.UPDATE });
 }
 
 export async function seedInvoices(world: SeedWorld) {

@@ -4,7 +4,6 @@
 // Seeding runs without a server: alerts are stored and e-mails are not sent.
 import { QueryTypes } from 'sequelize';
 import { pino } from 'pino';
-import { Organization } from '../../server/src/db/models/organization.model.js';
 import { loadConfig } from '../../server/src/config/env.js';
 import { createJobQueue } from '../../server/src/jobs/queue.js';
 import type { AppContext, RealtimeServer } from '../../server/src/context.js';
@@ -12,6 +11,7 @@ import { buildAgreement, buildCommitment, buildDropSite, buildPlacement, buildRe
 import { applySpray, cancelSpray, planSpray, sprayInput } from '../../tests/support/builders/sprays.js';
 import type { SeedBlocks } from './blocks.seed.js';
 import type { SeedWorld } from '../seed-world.js';
+import { builderModels, builderSequelize } from '../../tests/support/builders/builder-database.js';
 
 const DAY = 86_400_000;
 const HOUR = 3_600_000;
@@ -21,12 +21,12 @@ const silentRealtime = { to: () => ({ emit: () => true }) } as unknown as Realti
 
 async function seedContext(today: Date): Promise<AppContext> {
   const logger = pino({ level: 'silent' });
-  return { config: loadConfig(), sequelize: Organization.sequelize!, io: silentRealtime, jobs: await createJobQueue('', logger, false), logger, now: () => today };
+  return { config: loadConfig(), sequelize: builderSequelize(), models: builderModels(), io: silentRealtime, jobs: await createJobQueue('', logger, false), logger, now: () => today };
 }
 
 /** Colonies near the block: placed by the requests part, or a small group placed here when it placed none. */
 async function ensureColoniesNear(world: SeedWorld, block: BuiltBlock) {
-  const [{ n }] = await Organization.sequelize!.query<{ n: number }>(
+  const [{ n }] = await builderSequelize().query<{ n: number }>(
     `SELECT count(*)::int AS n FROM placements p JOIN drop_sites d ON d.id = p.drop_site_id JOIN blocks b ON b.id = :blockId
      WHERE ST_DWithin(d.location::geography, coalesce(b.outline, b.location)::geography, 1609.344) AND p.on_site @> CAST(:today AS timestamptz)`,
     { replacements: { blockId: block.id, today: world.today.toISOString() }, type: QueryTypes.SELECT },
@@ -71,7 +71,7 @@ export async function seedSprays(world: SeedWorld) {
   // Codling moth trap checks on the Gala block every three days; catches on two successive checks set the biofix.
   const counts = [0, 0, 1, 0, 2, 5, 7];
   for (const [i, moths] of counts.entries()) {
-    await Organization.sequelize!.query(
+    await builderSequelize().query(
       `INSERT INTO pest_trap_counts (block_id, pest_model_id, checked_on, moths, recorded_by) VALUES (:blockId, 'codling-moth', :day, :moths, :by)`,
       { replacements: { blockId: benchGala.id, day: new Date(dayStart - (counts.length - i) * 3 * DAY).toISOString().slice(0, 10), moths, by: applicator.id } },
     );

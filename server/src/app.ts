@@ -13,7 +13,7 @@ import { pinoHttp } from 'pino-http';
 import type { Config } from './config/env.js';
 import type { AppContext, RealtimeServer } from './context.js';
 import { createSequelize } from './db/sequelize.js';
-import { initModels } from './db/models/index.js';
+import { defineModels } from './db/models/index.js';
 import { createJobQueue } from './jobs/queue.js';
 import { startEmailWorker } from './jobs/send-email.job.js';
 import { createMailer } from './mail/mailer.js';
@@ -38,7 +38,7 @@ export interface CreatedApp {
 export async function createApp(config: Config, options: { now?: () => Date } = {}): Promise<CreatedApp> {
   const logger = pino({ level: config.logLevel });
   const sequelize = createSequelize(config.databaseUrl, config.databasePoolMax);
-  initModels(sequelize);
+  const models = defineModels(sequelize);
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 5 });
   pool.on('error', (err) => logger.warn({ err }, 'database pool error'));
   // The realtime adapter holds one LISTEN connection for good, so it gets a pool of its
@@ -60,7 +60,7 @@ export async function createApp(config: Config, options: { now?: () => Date } = 
   const io = createRealtimeServer(server, sessionStack, realtimePool);
   const jobs = await createJobQueue(config.databaseUrl, logger, config.jobsEnabled);
   const mailer = createMailer(config);
-  const context: AppContext = { config, sequelize, io, jobs, logger, now };
+  const context: AppContext = { config, sequelize, models, io, jobs, logger, now };
   const csrf = createCsrf(config);
 
   app.use(

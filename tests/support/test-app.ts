@@ -5,6 +5,7 @@ import { createApp, type CreatedApp } from '../../server/src/app.js';
 import { startSmtpSink, type SmtpSink } from '../../server/src/fakes/smtp-sink.js';
 import { startPaymentsStandIn, type PaymentsStandIn } from '../../server/src/fakes/payments-stand-in.js';
 import { createTestDatabase } from './test-database.js';
+import { useBuilderDatabase } from './builders/builder-database.js';
 
 export interface TestApp extends CreatedApp {
   baseUrl: string;
@@ -50,6 +51,7 @@ async function boot(database: { url: string; drop: () => Promise<void> }, sink: 
     options.config,
   );
   const created = await createApp(config, { now: options.now });
+  useBuilderDatabase(created.context);
   const port = await created.listen(0, '127.0.0.1');
   payments.setWebhookUrl(`http://127.0.0.1:${port}/api/webhooks/payments`);
   const testApp: TestApp = {

@@ -1,10 +1,9 @@
-// Every association between models, in one place. Features add theirs here.
-import { Organization } from './models/organization.model.js';
-import { User } from './models/user.model.js';
-import { Invitation } from './models/invitation.model.js';
+// Every association between models, in one place, declared on one app's registry.
+// Features add theirs here.
+import type { Models } from './models/index.js';
 
-export function associateModels() {
-  Organization.hasMany(User, { foreignKey: 'organizationId', as: 'members' });
-  User.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
-  Invitation.belongsTo(Organization, { foreignKey: 'organizationId', as: 'organization' });
+export function associateModels(m: Models) {
+  m.Organization.hasMany(m.User, { foreignKey: 'organizationId', as: 'members' });
+  m.User.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
+  m.Invitation.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
 }

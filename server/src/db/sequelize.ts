@@ -1,5 +1,5 @@
-// The Sequelize instance for one database URL. Models are initialised on it by
-// initModels(); each createApp() gets its own instance so tests can run side by side.
+// The Sequelize instance for one database URL. defineModels() binds the models to it;
+// each createApp() gets its own instance so tests can run side by side.
 import { Sequelize } from 'sequelize';
 
 export function createSequelize(databaseUrl: string, poolMax = 10): Sequelize {

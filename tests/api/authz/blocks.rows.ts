@@ -4,9 +4,9 @@
 // blocks they follow; the platform admin edits the published reference data.
 import { buildBlock } from '../../support/builders/season.js';
 import { buildStation } from '../../support/builders/weather.js';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
 import { QueryTypes } from 'sequelize';
 import { apiaryMembers, each, farmMembers, statuses, type AuthzRow, type AuthzWorld } from './authz-row.js';
+import { builderSequelize } from '../../support/builders/builder-database.js';
 
 interface Fixtures { blockId: string; stationId: string; frostId: string }
 
@@ -29,7 +29,7 @@ const newBlock = async ({ world }: { world: AuthzWorld }) => ({ id: (await build
 export const setup = async (world: AuthzWorld): Promise<Fixtures> => {
   const station = await buildStation({ farm: world.own.farm, name: 'Authz mast' });
   const block = await buildBlock({ farm: world.own.farm, name: 'Authz block' });
-  const [frost] = await Organization.sequelize!.query<{ id: string }>("SELECT id FROM frost_critical_temperatures WHERE crop = 'apple' ORDER BY sort_order LIMIT 1", { type: QueryTypes.SELECT });
+  const [frost] = await builderSequelize().query<{ id: string }>("SELECT id FROM frost_critical_temperatures WHERE crop = 'apple' ORDER BY sort_order LIMIT 1", { type: QueryTypes.SELECT });
   return { blockId: block.id, stationId: station.id, frostId: frost.id };
 };
 

@@ -3,9 +3,9 @@
 // cheques and refund; the grower's owner and manager pay online; crew, applicators and the
 // admin see no money. Another organization gets 404 for these invoices (or its own, empty lists).
 import { QueryTypes } from 'sequelize';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
 import { buildBillableSeason, buildInvoice } from '../../support/builders/invoices.js';
 import { each, statuses, type AuthzRow, type AuthzRowFile, type AuthzWorld } from './authz-row.js';
+import { builderSequelize } from '../../support/builders/builder-database.js';
 
 interface Fixtures { issuedId: string; draftId: string; onlinePaymentId: string }
 
@@ -30,7 +30,7 @@ const freshAgreement = async ({ world }: { world: Pick<AuthzWorld, 'own'> }) => 
 const file: AuthzRowFile<Fixtures> = {
   async setup(world) {
     const issuedId = await invoice(world, true);
-    const [payment] = await Organization.sequelize!.query<{ id: string }>(
+    const [payment] = await builderSequelize().query<{ id: string }>(
       `INSERT INTO payments (invoice_id, method, state, amount_cents, currency, provider_payment_id, received_at)
        VALUES (:issuedId, 'online', 'succeeded', 100, 'USD', 'pi_test_authz_row', now()) RETURNING id`,
       { replacements: { issuedId }, type: QueryTypes.SELECT },

@@ -3,9 +3,9 @@
 // member of the farm and of the affected apiary business reads an alert, all but viewers
 // answer; another organization gets 404 for these rows (or 400 naming a block not its own).
 import { QueryTypes } from 'sequelize';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
 import { buildBlock } from '../../support/builders/season.js';
 import { each, statuses, farmMembers, type AuthzRow, type AuthzRowFile } from './authz-row.js';
+import { builderSequelize } from '../../support/builders/builder-database.js';
 
 interface Fixtures { blockId: string; sprayId: string; alertId: string }
 
@@ -15,7 +15,7 @@ const start = new Date(Date.now() + 5 * 86_400_000);
 const end = new Date(start.getTime() + 2 * 3_600_000);
 
 async function insertSpray(farmId: string, blockId: string): Promise<string> {
-  const sequelize = Organization.sequelize!;
+  const sequelize = builderSequelize();
   const [row] = await sequelize.query<{ id: string }>(
     `INSERT INTO spray_plans (farm_id, planned_window, exposure_window, product_name, noticed_at)
      VALUES (:farmId, tstzrange(:from, :to, '[)'), tstzrange(:from, :to, '[)'), 'Row test product', now()) RETURNING id`,
@@ -39,7 +39,7 @@ const file: AuthzRowFile<Fixtures> = {
 };
 
 async function insertAlert(sprayId: string, farmId: string, apiaryId: string): Promise<string> {
-  const [alert] = await Organization.sequelize!.query<{ id: string }>(
+  const [alert] = await builderSequelize().query<{ id: string }>(
     `INSERT INTO alerts (spray_plan_id, farm_id, apiary_id, grade, grades, reasons, findings, raised_at)
      VALUES (:sprayId, :farmId, :apiaryId, 'colonies-exposed', '{colonies-exposed}', '["row test"]', '{"colonies": null, "duringBloom": false, "residualHours": 24, "bufferM": 1609.344}', now())
      RETURNING id`,

@@ -1,8 +1,9 @@
 // Builders for organizations and their members, used by tests and by the demo seed.
-import { Organization } from '../../../server/src/db/models/organization.model.js';
-import { User } from '../../../server/src/db/models/user.model.js';
+import type { Organization } from '../../../server/src/db/models/organization.model.js';
+import type { User } from '../../../server/src/db/models/user.model.js';
 import { hashPassword } from '../../../server/src/modules/auth/passwords.js';
 import type { MemberRole, OrganizationKind } from '../../../shared/roles.js';
+import { builderModels, builderSequelize } from './builder-database.js';
 
 let counter = 0;
 const unique = () => `${Date.now().toString(36)}${(counter++).toString(36)}`;
@@ -13,7 +14,7 @@ const hashFor = (password: string) =>
   password === defaultTestPassword ? (cachedDefaultHash ??= hashPassword(defaultTestPassword)) : hashPassword(password);
 
 export async function buildOrganization(attrs: { kind: OrganizationKind; name?: string; timeZone?: string; coloniesOwned?: number | null; billingEmail?: string | null; taxRateBp?: number }) {
-  return Organization.create({
+  return builderModels().Organization.create({
     kind: attrs.kind,
     name: attrs.name ?? `${attrs.kind === 'farm' ? 'Farm' : 'Apiary'} ${unique()}`,
     timeZone: attrs.timeZone ?? 'America/Los_Angeles',
@@ -24,7 +25,7 @@ export async function buildOrganization(attrs: { kind: OrganizationKind; name?: 
 }
 
 export async function buildUser(attrs: { organization: Organization | null; role: MemberRole; email?: string; name?: string; password?: string; units?: 'imperial' | 'metric' }) {
-  return User.create({
+  return builderModels().User.create({
     organizationId: attrs.organization?.id ?? null,
     email: (attrs.email ?? `${attrs.role}-${unique()}@example.test`).toLowerCase(),
     name: attrs.name ?? `Test ${attrs.role}`,

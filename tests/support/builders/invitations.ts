@@ -1,16 +1,15 @@
 // Builders for invitations and password reset tokens: they return the plain token the
 // e-mail would carry, with only its hash stored, as the app does.
-import { Invitation } from '../../../server/src/db/models/invitation.model.js';
-import { PasswordResetToken } from '../../../server/src/db/models/password-reset-token.model.js';
 import { newEmailedToken } from '../../../server/src/modules/auth/emailed-tokens.js';
 import type { MemberRoleValue } from '../../../shared/schemas/organization.js';
+import { builderModels } from './builder-database.js';
 
 let counter = 0;
 const unique = () => `${Date.now().toString(36)}${(counter++).toString(36)}`;
 
 export async function buildInvitation(attrs: { organization: { id: string }; role?: MemberRoleValue; email?: string; invitedBy?: { id: string } | null; expiresAt?: Date }) {
   const { token, tokenHash } = newEmailedToken();
-  const invitation = await Invitation.create({
+  const invitation = await builderModels().Invitation.create({
     organizationId: attrs.organization.id,
     email: (attrs.email ?? `invitee-${unique()}@example.test`).toLowerCase(),
     role: attrs.role ?? 'viewer',
@@ -25,6 +24,6 @@ export async function buildInvitation(attrs: { organization: { id: string }; rol
 
 export async function buildPasswordResetToken(attrs: { user: { id: string }; expiresAt?: Date }) {
   const { token, tokenHash } = newEmailedToken();
-  const row = await PasswordResetToken.create({ userId: attrs.user.id, tokenHash, expiresAt: attrs.expiresAt ?? new Date(Date.now() + 3_600_000), usedAt: null });
+  const row = await builderModels().PasswordResetToken.create({ userId: attrs.user.id, tokenHash, expiresAt: attrs.expiresAt ?? new Date(Date.now() + 3_600_000), usedAt: null });
   return { row, token };
 }

@@ -1,15 +1,14 @@
 // Builders for invoices and payments: a picked-up season ready to bill, drafts and issued
 // invoices made by the same drafting code the server uses, and recorded payments.
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
-import { Payment } from '../../../server/src/db/models/payment.model.js';
 import { loadAgreement, insertDraft, issueDraft } from '../../../server/src/modules/invoices/invoice-drafting.js';
 import { buildSignedSeason, buildStrengthCheck, type RequestTerms } from './season.js';
+import { builderModels, builderSequelize } from './builder-database.js';
 
 type Org = { id: string };
 
 function db(): Sequelize {
-  const sequelize = Organization.sequelize;
+  const sequelize = builderSequelize();
   if (!sequelize) throw new Error('models are not initialised: start the test app first');
   return sequelize;
 }
@@ -53,7 +52,7 @@ export async function buildInvoice(attrs: { agreement: { id: string }; apiary: O
 
 /** A cheque or bank transfer the beekeeper has recorded. */
 export async function buildManualPayment(attrs: { invoice: { id: string }; amountCents: number; receivedAt: Date; method?: 'cheque' | 'bank-transfer'; reference?: string }) {
-  return Payment.create({
+  return builderModels().Payment.create({
     invoiceId: attrs.invoice.id, method: attrs.method ?? 'cheque', state: 'succeeded', amountCents: attrs.amountCents, currency: 'USD',
     providerPaymentId: null, failureMessage: null, reference: attrs.reference ?? null, receivedAt: attrs.receivedAt, recordedBy: null,
   });

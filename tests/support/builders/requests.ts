@@ -3,11 +3,11 @@
 // and the finishing touches the core builders leave out (clauses, one-sided confirmation,
 // audit entries).
 import { QueryTypes } from 'sequelize';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
 import { agreementClauses } from '../../../shared/domain/agreement-clauses.js';
 import { buildOrganization, buildUser } from './accounts.js';
 import { buildBlock, buildBloomWindow, buildYard } from './season.js';
 import type { RequestBody } from '../../../shared/schemas/requests.js';
+import { builderSequelize } from './builder-database.js';
 
 let counter = 0;
 
@@ -60,7 +60,7 @@ export function requestPayload(blockId: string, overrides: Partial<RequestBody> 
 
 /** Writes our standard clauses into an agreement made by buildAgreement, from its own terms. */
 export async function fillAgreementClauses(agreement: { id: string }) {
-  const sequelize = Organization.sequelize!;
+  const sequelize = builderSequelize();
   const [t] = await sequelize.query<Record<string, number | string | null>>('SELECT * FROM agreements WHERE id = :id', { replacements: { id: agreement.id }, type: QueryTypes.SELECT });
   const clauses = agreementClauses({
     colonies: t.colonies as number, minFramesOfBees: t.min_frames_of_bees as number, minFramesOfBrood: t.min_frames_of_brood as number | null,
@@ -73,14 +73,14 @@ export async function fillAgreementClauses(agreement: { id: string }) {
 
 /** Records who confirmed an agreement for one side, and when. */
 export async function confirmAgreementSide(agreement: { id: string }, side: 'farm' | 'apiary', by: { id: string }, at: Date) {
-  await Organization.sequelize!.query(`UPDATE agreements SET ${side}_confirmed_by = :by, ${side}_confirmed_at = :at WHERE id = :id`, {
+  await builderSequelize().query(`UPDATE agreements SET ${side}_confirmed_by = :by, ${side}_confirmed_at = :at WHERE id = :id`, {
     replacements: { id: agreement.id, by: by.id, at: at.toISOString() },
   });
 }
 
 /** An audit-trail entry on a request. */
 export async function buildRequestEvent(request: { id: string }, actor: { id: string } | null, action: string, at: Date, detail: Record<string, unknown> = {}) {
-  await Organization.sequelize!.query(
+  await builderSequelize().query(
     'INSERT INTO hive_request_events (request_id, actor_id, action, detail, created_at) VALUES (:requestId, :actorId, :action, :detail::jsonb, :at)',
     { replacements: { requestId: request.id, actorId: actor?.id ?? null, action, detail: JSON.stringify(detail), at: at.toISOString() } },
   );

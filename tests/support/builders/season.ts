@@ -2,13 +2,13 @@
 // sites, commitments, agreements, placements, strength checks), written as plain SQL on
 // the core tables so every feature's tests and the seed can use them.
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
 import type { GeoPolygon } from '../../../shared/schemas/common.js';
+import { builderSequelize } from './builder-database.js';
 
 const SQUARE_METRES_PER_ACRE = 4046.8564224;
 
 function db(): Sequelize {
-  const sequelize = Organization.sequelize;
+  const sequelize = builderSequelize();
   if (!sequelize) throw new Error('models are not initialised: start the test app first');
   return sequelize;
 }

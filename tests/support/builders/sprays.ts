@@ -1,11 +1,10 @@
 // Builders for spray plans: planned through the sprays service (so the conflict check runs
 // and alerts are raised as in the product), for tests and the demo seed.
 import type { AppContext } from '../../../server/src/context.js';
-import { User } from '../../../server/src/db/models/user.model.js';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
 import { toAuthUser } from '../../../server/src/modules/auth/auth-user.js';
 import { createSpraysService } from '../../../server/src/modules/sprays/sprays.service.js';
 import { sprayInputSchema, type SprayInput } from '../../../shared/schemas/sprays.js';
+import { builderModels } from './builder-database.js';
 
 const HOUR_MS = 3_600_000;
 
@@ -28,7 +27,7 @@ export function sprayInput(attrs: { blockIds: string[]; startsAt: Date; hours?: 
 }
 
 async function authUserOf(user: { id: string }) {
-  const loaded = await User.findByPk(user.id, { include: [{ model: Organization, as: 'organization' }] });
+  const loaded = await builderModels().User.findByPk(user.id, { include: [{ model: builderModels().Organization, as: 'organization' }] });
   if (!loaded) throw new Error('no such user');
   return toAuthUser(loaded);
 }

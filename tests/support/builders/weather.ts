@@ -1,10 +1,10 @@
 // Builders for weather stations, daily temperatures and forecast lows, and a synthetic but
 // plausible spring for tests and the demo (deterministic: no randomness).
 import { QueryTypes, type Sequelize } from 'sequelize';
-import { Organization } from '../../../server/src/db/models/organization.model.js';
+import { builderSequelize } from './builder-database.js';
 
 function db(): Sequelize {
-  const sequelize = Organization.sequelize;
+  const sequelize = builderSequelize();
   if (!sequelize) throw new Error('models are not initialised: start the test app first');
   return sequelize;
 }

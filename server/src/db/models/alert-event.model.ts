@@ -14,7 +14,7 @@ export class AlertEvent extends Model<InferAttributes<AlertEvent>, InferCreation
   declare createdAt: CreationOptional<Date>;
 }
 
-export function initAlertEvent(sequelize: Sequelize) {
+export function defineAlertEvent(sequelize: Sequelize): typeof AlertEvent {
   AlertEvent.init(
     {
       id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
@@ -27,6 +27,7 @@ export function initAlertEvent(sequelize: Sequelize) {
       detail: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'alert_events', updatedAt: false },
+    { sequelize, modelName: 'AlertEvent', tableName: 'alert_events', updatedAt: false },
   );
+  return AlertEvent;
 }

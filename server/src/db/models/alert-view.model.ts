@@ -8,7 +8,7 @@ export class AlertView extends Model<InferAttributes<AlertView>, InferCreationAt
   declare seenAt: Date;
 }
 
-export function initAlertView(sequelize: Sequelize) {
+export function defineAlertView(sequelize: Sequelize): typeof AlertView {
   AlertView.init(
     {
       alertId: { type: DataTypes.UUID, primaryKey: true },
@@ -16,6 +16,7 @@ export function initAlertView(sequelize: Sequelize) {
       seenBy: { type: DataTypes.UUID, allowNull: true },
       seenAt: { type: DataTypes.DATE, allowNull: false },
     },
-    { sequelize, tableName: 'alert_views', timestamps: false },
+    { sequelize, modelName: 'AlertView', tableName: 'alert_views', timestamps: false },
   );
+  return AlertView;
 }

@@ -20,7 +20,7 @@ export class Alert extends Model<InferAttributes<Alert>, InferCreationAttributes
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initAlert(sequelize: Sequelize) {
+export function defineAlert(sequelize: Sequelize): typeof Alert {
   Alert.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -38,6 +38,7 @@ export function initAlert(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'alerts' },
+    { sequelize, modelName: 'Alert', tableName: 'alerts' },
   );
+  return Alert;
 }

@@ -24,7 +24,7 @@ export class Block extends Model<InferAttributes<Block>, InferCreationAttributes
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initBlock(sequelize: Sequelize) {
+export function defineBlock(sequelize: Sequelize): typeof Block {
   Block.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -46,6 +46,7 @@ export function initBlock(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'blocks', underscored: true },
+    { sequelize, modelName: 'Block', tableName: 'blocks', underscored: true },
   );
+  return Block;
 }

@@ -6,12 +6,13 @@ export class BloomDigestMark extends Model<InferAttributes<BloomDigestMark>, Inf
   declare reportedThrough: Date;
 }
 
-export function initBloomDigestMark(sequelize: Sequelize) {
+export function defineBloomDigestMark(sequelize: Sequelize): typeof BloomDigestMark {
   BloomDigestMark.init(
     {
       apiaryId: { type: DataTypes.UUID, primaryKey: true },
       reportedThrough: { type: DataTypes.DATE, allowNull: false },
     },
-    { sequelize, tableName: 'bloom_digest_marks', underscored: true, timestamps: false },
+    { sequelize, modelName: 'BloomDigestMark', tableName: 'bloom_digest_marks', underscored: true, timestamps: false },
   );
+  return BloomDigestMark;
 }

@@ -13,7 +13,7 @@ export class BloomWindow extends Model<InferAttributes<BloomWindow>, InferCreati
   declare createdAt: CreationOptional<Date>;
 }
 
-export function initBloomWindow(sequelize: Sequelize) {
+export function defineBloomWindow(sequelize: Sequelize): typeof BloomWindow {
   BloomWindow.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -26,6 +26,7 @@ export function initBloomWindow(sequelize: Sequelize) {
       revisedBy: { type: DataTypes.UUID, allowNull: true },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'bloom_windows', underscored: true, updatedAt: false },
+    { sequelize, modelName: 'BloomWindow', tableName: 'bloom_windows', underscored: true, updatedAt: false },
   );
+  return BloomWindow;
 }

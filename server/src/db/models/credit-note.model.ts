@@ -12,7 +12,7 @@ export class CreditNote extends Model<InferAttributes<CreditNote>, InferCreation
   declare createdAt: CreationOptional<Date>;
 }
 
-export function initCreditNote(sequelize: Sequelize) {
+export function defineCreditNote(sequelize: Sequelize): typeof CreditNote {
   CreditNote.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -24,6 +24,7 @@ export function initCreditNote(sequelize: Sequelize) {
       createdBy: { type: DataTypes.UUID, allowNull: true },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'credit_notes', updatedAt: false },
+    { sequelize, modelName: 'CreditNote', tableName: 'credit_notes', updatedAt: false },
   );
+  return CreditNote;
 }

@@ -23,7 +23,7 @@ export class CropStageThreshold extends Model<InferAttributes<CropStageThreshold
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initCropStageThreshold(sequelize: Sequelize) {
+export function defineCropStageThreshold(sequelize: Sequelize): typeof CropStageThreshold {
   CropStageThreshold.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -44,6 +44,7 @@ export function initCropStageThreshold(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'crop_stage_thresholds', underscored: true },
+    { sequelize, modelName: 'CropStageThreshold', tableName: 'crop_stage_thresholds', underscored: true },
   );
+  return CropStageThreshold;
 }

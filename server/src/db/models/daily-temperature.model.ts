@@ -12,7 +12,7 @@ export class DailyTemperature extends Model<InferAttributes<DailyTemperature>, I
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initDailyTemperature(sequelize: Sequelize) {
+export function defineDailyTemperature(sequelize: Sequelize): typeof DailyTemperature {
   DailyTemperature.init(
     {
       stationId: { type: DataTypes.UUID, primaryKey: true },
@@ -24,6 +24,7 @@ export function initDailyTemperature(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'daily_temperatures', underscored: true },
+    { sequelize, modelName: 'DailyTemperature', tableName: 'daily_temperatures', underscored: true },
   );
+  return DailyTemperature;
 }

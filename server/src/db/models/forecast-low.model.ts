@@ -10,7 +10,7 @@ export class ForecastLow extends Model<InferAttributes<ForecastLow>, InferCreati
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initForecastLow(sequelize: Sequelize) {
+export function defineForecastLow(sequelize: Sequelize): typeof ForecastLow {
   ForecastLow.init(
     {
       stationId: { type: DataTypes.UUID, primaryKey: true },
@@ -20,6 +20,7 @@ export function initForecastLow(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'forecast_lows', underscored: true },
+    { sequelize, modelName: 'ForecastLow', tableName: 'forecast_lows', underscored: true },
   );
+  return ForecastLow;
 }

@@ -14,7 +14,7 @@ export class FrostCriticalTemperature extends Model<InferAttributes<FrostCritica
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initFrostCriticalTemperature(sequelize: Sequelize) {
+export function defineFrostCriticalTemperature(sequelize: Sequelize): typeof FrostCriticalTemperature {
   FrostCriticalTemperature.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -28,6 +28,7 @@ export function initFrostCriticalTemperature(sequelize: Sequelize) {
       updatedBy: { type: DataTypes.UUID, allowNull: true },
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'frost_critical_temperatures', underscored: true, createdAt: false },
+    { sequelize, modelName: 'FrostCriticalTemperature', tableName: 'frost_critical_temperatures', underscored: true, createdAt: false },
   );
+  return FrostCriticalTemperature;
 }

@@ -1,38 +1,62 @@
-// Initialises every model on one Sequelize instance, then their associations.
-// Features add their init function to the list.
+// Every model of the app, defined on one Sequelize instance, with their associations.
+// createApp() calls defineModels() once and keeps the registry on its context (ctx.models),
+// so two apps in one process each keep their own database. Add a new model here.
 import type { Sequelize } from 'sequelize';
-import { initOrganization } from './organization.model.js';
-import { initUser } from './user.model.js';
-import { initInvitation } from './invitation.model.js';
-import { initPasswordResetToken } from './password-reset-token.model.js';
-import { initSprayPlan } from './spray-plan.model.js';
-import { initSprayPlanBlock } from './spray-plan-block.model.js';
-import { initPestModel } from './pest-model.model.js';
-import { initPestTrapCount } from './pest-trap-count.model.js';
-import { initAlert } from './alert.model.js';
-import { initAlertEvent } from './alert-event.model.js';
-import { initAlertView } from './alert-view.model.js';
-import { initBlock } from './block.model.js';
-import { initBloomWindow } from './bloom-window.model.js';
-import { initWeatherStation } from './weather-station.model.js';
-import { initDailyTemperature } from './daily-temperature.model.js';
-import { initForecastLow } from './forecast-low.model.js';
-import { initCropStageThreshold } from './crop-stage-threshold.model.js';
-import { initFrostCriticalTemperature } from './frost-critical-temperature.model.js';
-import { initBloomDigestMark } from './bloom-digest-mark.model.js';
-import { initInvoice } from './invoice.model.js';
-import { initInvoiceLine } from './invoice-line.model.js';
-import { initCreditNote } from './credit-note.model.js';
-import { initPayment } from './payment.model.js';
-import { initRefund } from './refund.model.js';
+import { defineOrganization } from './organization.model.js';
+import { defineUser } from './user.model.js';
+import { defineInvitation } from './invitation.model.js';
+import { definePasswordResetToken } from './password-reset-token.model.js';
+import { defineSprayPlan } from './spray-plan.model.js';
+import { defineSprayPlanBlock } from './spray-plan-block.model.js';
+import { definePestModel } from './pest-model.model.js';
+import { definePestTrapCount } from './pest-trap-count.model.js';
+import { defineAlert } from './alert.model.js';
+import { defineAlertEvent } from './alert-event.model.js';
+import { defineAlertView } from './alert-view.model.js';
+import { defineBlock } from './block.model.js';
+import { defineBloomWindow } from './bloom-window.model.js';
+import { defineWeatherStation } from './weather-station.model.js';
+import { defineDailyTemperature } from './daily-temperature.model.js';
+import { defineForecastLow } from './forecast-low.model.js';
+import { defineCropStageThreshold } from './crop-stage-threshold.model.js';
+import { defineFrostCriticalTemperature } from './frost-critical-temperature.model.js';
+import { defineBloomDigestMark } from './bloom-digest-mark.model.js';
+import { defineInvoice } from './invoice.model.js';
+import { defineInvoiceLine } from './invoice-line.model.js';
+import { defineCreditNote } from './credit-note.model.js';
+import { definePayment } from './payment.model.js';
+import { defineRefund } from './refund.model.js';
 import { associateModels } from '../associations.js';
 
-const modelInitializers: Array<(sequelize: Sequelize) => void> = [initOrganization, initUser, initInvitation, initPasswordResetToken,
-  initSprayPlan, initSprayPlanBlock, initPestModel, initPestTrapCount, initAlert, initAlertEvent, initAlertView,
-  initBlock, initBloomWindow, initWeatherStation, initDailyTemperature, initForecastLow, initCropStageThreshold, initFrostCriticalTemperature, initBloomDigestMark,
-  initInvoice, initInvoiceLine, initCreditNote, initPayment, initRefund];
-
-export function initModels(sequelize: Sequelize) {
-  for (const init of modelInitializers) init(sequelize);
-  associateModels();
+export function defineModels(sequelize: Sequelize) {
+  const models = {
+    Organization: defineOrganization(sequelize),
+    User: defineUser(sequelize),
+    Invitation: defineInvitation(sequelize),
+    PasswordResetToken: definePasswordResetToken(sequelize),
+    SprayPlan: defineSprayPlan(sequelize),
+    SprayPlanBlock: defineSprayPlanBlock(sequelize),
+    PestModel: definePestModel(sequelize),
+    PestTrapCount: definePestTrapCount(sequelize),
+    Alert: defineAlert(sequelize),
+    AlertEvent: defineAlertEvent(sequelize),
+    AlertView: defineAlertView(sequelize),
+    Block: defineBlock(sequelize),
+    BloomWindow: defineBloomWindow(sequelize),
+    WeatherStation: defineWeatherStation(sequelize),
+    DailyTemperature: defineDailyTemperature(sequelize),
+    ForecastLow: defineForecastLow(sequelize),
+    CropStageThreshold: defineCropStageThreshold(sequelize),
+    FrostCriticalTemperature: defineFrostCriticalTemperature(sequelize),
+    BloomDigestMark: defineBloomDigestMark(sequelize),
+    Invoice: defineInvoice(sequelize),
+    InvoiceLine: defineInvoiceLine(sequelize),
+    CreditNote: defineCreditNote(sequelize),
+    Payment: definePayment(sequelize),
+    Refund: defineRefund(sequelize),
+  };
+  associateModels(models);
+  return models;
 }
+
+export type Models = ReturnType<typeof defineModels>;

@@ -19,7 +19,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare organization?: NonAttribute<Organization>;
 }
 
-export function initInvitation(sequelize: Sequelize) {
+export function defineInvitation(sequelize: Sequelize): typeof Invitation {
   Invitation.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -34,6 +34,7 @@ export function initInvitation(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'invitations' },
+    { sequelize, modelName: 'Invitation', tableName: 'invitations' },
   );
+  return Invitation;
 }

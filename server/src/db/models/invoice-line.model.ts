@@ -14,7 +14,7 @@ export class InvoiceLine extends Model<InferAttributes<InvoiceLine>, InferCreati
   declare amountCents: number;
 }
 
-export function initInvoiceLine(sequelize: Sequelize) {
+export function defineInvoiceLine(sequelize: Sequelize): typeof InvoiceLine {
   InvoiceLine.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -27,6 +27,7 @@ export function initInvoiceLine(sequelize: Sequelize) {
       unitCents: { type: DataTypes.INTEGER, allowNull: false },
       amountCents: { type: DataTypes.INTEGER, allowNull: false },
     },
-    { sequelize, tableName: 'invoice_lines', timestamps: false },
+    { sequelize, modelName: 'InvoiceLine', tableName: 'invoice_lines', timestamps: false },
   );
+  return InvoiceLine;
 }

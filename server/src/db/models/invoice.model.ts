@@ -31,7 +31,7 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initInvoice(sequelize: Sequelize) {
+export function defineInvoice(sequelize: Sequelize): typeof Invoice {
   Invoice.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -61,6 +61,7 @@ export function initInvoice(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'invoices' },
+    { sequelize, modelName: 'Invoice', tableName: 'invoices' },
   );
+  return Invoice;
 }

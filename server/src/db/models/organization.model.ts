@@ -16,7 +16,7 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initOrganization(sequelize: Sequelize) {
+export function defineOrganization(sequelize: Sequelize): typeof Organization {
   Organization.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -31,6 +31,7 @@ export function initOrganization(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'organizations' },
+    { sequelize, modelName: 'Organization', tableName: 'organizations' },
   );
+  return Organization;
 }

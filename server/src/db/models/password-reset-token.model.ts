@@ -10,7 +10,7 @@ export class PasswordResetToken extends Model<InferAttributes<PasswordResetToken
   declare createdAt: CreationOptional<Date>;
 }
 
-export function initPasswordResetToken(sequelize: Sequelize) {
+export function definePasswordResetToken(sequelize: Sequelize): typeof PasswordResetToken {
   PasswordResetToken.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -20,6 +20,7 @@ export function initPasswordResetToken(sequelize: Sequelize) {
       usedAt: { type: DataTypes.DATE, allowNull: true },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'password_reset_tokens', updatedAt: false },
+    { sequelize, modelName: 'PasswordResetToken', tableName: 'password_reset_tokens', updatedAt: false },
   );
+  return PasswordResetToken;
 }

@@ -18,7 +18,7 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initPayment(sequelize: Sequelize) {
+export function definePayment(sequelize: Sequelize): typeof Payment {
   Payment.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -35,6 +35,7 @@ export function initPayment(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'payments' },
+    { sequelize, modelName: 'Payment', tableName: 'payments' },
   );
+  return Payment;
 }

@@ -13,7 +13,7 @@ export class PestModel extends Model<InferAttributes<PestModel>, InferCreationAt
   declare source: string;
 }
 
-export function initPestModel(sequelize: Sequelize) {
+export function definePestModel(sequelize: Sequelize): typeof PestModel {
   PestModel.init(
     {
       id: { type: DataTypes.TEXT, primaryKey: true },
@@ -26,6 +26,7 @@ export function initPestModel(sequelize: Sequelize) {
       stages: { type: DataTypes.JSONB, allowNull: false },
       source: { type: DataTypes.TEXT, allowNull: false },
     },
-    { sequelize, tableName: 'pest_models', timestamps: false },
+    { sequelize, modelName: 'PestModel', tableName: 'pest_models', timestamps: false },
   );
+  return PestModel;
 }

@@ -11,7 +11,7 @@ export class PestTrapCount extends Model<InferAttributes<PestTrapCount>, InferCr
   declare createdAt: CreationOptional<Date>;
 }
 
-export function initPestTrapCount(sequelize: Sequelize) {
+export function definePestTrapCount(sequelize: Sequelize): typeof PestTrapCount {
   PestTrapCount.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -22,6 +22,7 @@ export function initPestTrapCount(sequelize: Sequelize) {
       recordedBy: { type: DataTypes.UUID, allowNull: true },
       createdAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'pest_trap_counts', updatedAt: false },
+    { sequelize, modelName: 'PestTrapCount', tableName: 'pest_trap_counts', updatedAt: false },
   );
+  return PestTrapCount;
 }

@@ -14,7 +14,7 @@ export class Refund extends Model<InferAttributes<Refund>, InferCreationAttribut
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initRefund(sequelize: Sequelize) {
+export function defineRefund(sequelize: Sequelize): typeof Refund {
   Refund.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -28,6 +28,7 @@ export function initRefund(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'refunds' },
+    { sequelize, modelName: 'Refund', tableName: 'refunds' },
   );
+  return Refund;
 }

@@ -6,12 +6,13 @@ export class SprayPlanBlock extends Model<InferAttributes<SprayPlanBlock>, Infer
   declare blockId: string;
 }
 
-export function initSprayPlanBlock(sequelize: Sequelize) {
+export function defineSprayPlanBlock(sequelize: Sequelize): typeof SprayPlanBlock {
   SprayPlanBlock.init(
     {
       sprayPlanId: { type: DataTypes.UUID, primaryKey: true },
       blockId: { type: DataTypes.UUID, primaryKey: true },
     },
-    { sequelize, tableName: 'spray_plan_blocks', timestamps: false },
+    { sequelize, modelName: 'SprayPlanBlock', tableName: 'spray_plan_blocks', timestamps: false },
   );
+  return SprayPlanBlock;
 }

@@ -25,7 +25,7 @@ export class SprayPlan extends Model<InferAttributes<SprayPlan>, InferCreationAt
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initSprayPlan(sequelize: Sequelize) {
+export function defineSprayPlan(sequelize: Sequelize): typeof SprayPlan {
   SprayPlan.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -47,6 +47,7 @@ export function initSprayPlan(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'spray_plans' },
+    { sequelize, modelName: 'SprayPlan', tableName: 'spray_plans' },
   );
+  return SprayPlan;
 }

@@ -19,7 +19,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare organization?: NonAttribute<Organization | null>;
 }
 
-export function initUser(sequelize: Sequelize) {
+export function defineUser(sequelize: Sequelize): typeof User {
   User.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -35,6 +35,7 @@ export function initUser(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'users' },
+    { sequelize, modelName: 'User', tableName: 'users' },
   );
+  return User;
 }

@@ -12,7 +12,7 @@ export class WeatherStation extends Model<InferAttributes<WeatherStation>, Infer
   declare updatedAt: CreationOptional<Date>;
 }
 
-export function initWeatherStation(sequelize: Sequelize) {
+export function defineWeatherStation(sequelize: Sequelize): typeof WeatherStation {
   WeatherStation.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
@@ -23,6 +23,7 @@ export function initWeatherStation(sequelize: Sequelize) {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'weather_stations', underscored: true },
+    { sequelize, modelName: 'WeatherStation', tableName: 'weather_stations', underscored: true },
   );
+  return WeatherStation;
 }
