@@ -1,21 +1,24 @@
 // `npm start`: installs what is missing, starts the private database, migrates, seeds the
-// demo when the database is empty, builds the client, starts the local stand-ins for the
-// hosted services and serves the app.
+// demo when the database is empty, builds the client and compiles the server when their
+// sources changed, starts the local stand-ins for the hosted services and serves the app
+// with plain node (WEB_CONCURRENCY processes; 1 by default).
 import { ensureDependencies } from './lib/dependencies.mjs';
 ensureDependencies();
 
 const { log } = await import('./lib/log.mjs');
 const { setUpAppDatabase } = await import('./lib/database-setup.mjs');
-const { runTs, spawnTs } = await import('./lib/run-node.mjs');
+const { runTs, spawnNode } = await import('./lib/run-node.mjs');
 const { ensureClientBuilt } = await import('./lib/client-build.mjs');
+const { ensureServerBuilt, serverEntry, fakesEntry } = await import('./lib/server-build.mjs');
 
 const database = await setUpAppDatabase();
 await runTs('seed/run.ts', ['--if-empty'], { DATABASE_URL: database.databaseUrl });
 ensureClientBuilt();
+ensureServerBuilt();
 
 const env = { DATABASE_URL: database.databaseUrl, NODE_ENV: 'production' };
-const fakes = spawnTs('server/src/fakes/run.ts', env);
-const server = spawnTs('server/src/index.ts', env);
+const fakes = spawnNode(fakesEntry, env);
+const server = spawnNode(serverEntry, env);
 
 const demoSignIns = [
   ['grower@orchard.test', 'farm owner'],

@@ -16,3 +16,10 @@ export function spawnTs(file, env = {}) {
     cwd: repoRoot, stdio: 'inherit', env: { ...process.env, ...env },
   });
 }
+
+/** Runs compiled JavaScript with plain node; stack traces map back to the TypeScript sources. */
+export function spawnNode(file, env = {}) {
+  return spawn(process.execPath, ['--enable-source-maps', file], {
+    cwd: repoRoot, stdio: 'inherit', env: { ...process.env, ...env },
+  });
+}

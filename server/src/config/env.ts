@@ -34,6 +34,8 @@ const envSchema = z.object({
   LOGIN_RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(50),
   JOBS_ENABLED: bool.default(true),
   REALTIME_ADAPTER: z.enum(['postgres', 'memory']).default('postgres'),
+  /** Server processes behind Node's cluster module (the usual name for it on hosting platforms). */
+  WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
 });
 
 export type Env = z.infer<typeof envSchema>;
@@ -60,6 +62,8 @@ export interface Config {
   loginRateLimit: { perAccount: number; perAddress: number };
   jobsEnabled: boolean;
   realtimeAdapter: 'postgres' | 'memory';
+  /** How many server processes index.ts runs (1: no cluster). */
+  webConcurrency: number;
 }
 
 /** Parses an environment (process.env by default) into a Config; throws naming each bad variable. */
@@ -96,6 +100,7 @@ export function loadConfig(source: Record<string, string | undefined> = process.
     loginRateLimit: { perAccount: e.LOGIN_RATE_LIMIT_PER_ACCOUNT, perAddress: e.LOGIN_RATE_LIMIT_PER_ADDRESS },
     jobsEnabled: e.JOBS_ENABLED,
     realtimeAdapter: e.REALTIME_ADAPTER,
+    webConcurrency: e.WEB_CONCURRENCY,
   };
   return { ...config, ...overrides };
 }

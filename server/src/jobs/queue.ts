@@ -32,7 +32,18 @@ export async function createJobQueue(databaseUrl: string, logger: Logger, enable
   const created = new Set<string>();
   const ensureQueue = async (name: string) => {
     if (created.has(name)) return;
-    await boss.createQueue(name);
+    // Several server processes starting together create the same queues at once; pg-boss's
+    // DDL can then deadlock (40P01) or collide (23505): the queue exists after a retry.
+    for (let attempt = 1; ; attempt += 1) {
+      try {
+        await boss.createQueue(name);
+        break;
+      } catch (err) {
+        const code = (err as { code?: string }).code;
+        if (attempt >= 5 || (code !== '40P01' && code !== '23505')) throw err;
+        await new Promise((r) => setTimeout(r, 50 * attempt));
+      }
+    }
     created.add(name);
   };
   return {
