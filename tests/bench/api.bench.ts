@@ -7,8 +7,6 @@
 // Run: npm run bench:api (the private PostgreSQL cluster must be running).
 //   BENCH_PROCESSES (default 2), BENCH_SECONDS per read run (default 8), BENCH_CONNECTIONS (default 16).
 import autocannon from 'autocannon';
-import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
 import { createSequelize } from '../../server/src/db/sequelize.js';
 import { defineModels } from '../../server/src/db/models/index.js';
 import { startSmtpSink } from '../../server/src/fakes/smtp-sink.js';
@@ -16,8 +14,7 @@ import { useBuilderDatabase } from '../support/builders/builder-database.js';
 import { buildBlock, buildRequest } from '../support/builders/season.js';
 import { seedScenario } from '../../seed/scenario.js';
 import { createBenchDatabase, percentile } from './bench-database.js';
-// @ts-expect-error plain JavaScript helper shared with npm start
-import { ensureServerBuilt, serverEntry } from '../../scripts/lib/server-build.mjs';
+import { startBenchServer, signIn, type BenchServer } from './bench-server.js';
 
 const PROCESSES = Number(process.env.BENCH_PROCESSES ?? 2);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
@@ -31,51 +28,6 @@ const readRoutes = [
   { name: 'alerts', path: '/api/alerts' },
   { name: 'invoices', path: '/api/invoices' },
 ];
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const probe = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as { port: number };
-      probe.close(() => resolve(port));
-    });
-  });
-
-async function waitForHealth(baseUrl: string, server: ChildProcess) {
-  const deadline = Date.now() + 60_000;
-  while (Date.now() < deadline) {
-    if (server.exitCode !== null) throw new Error(`the server exited with ${server.exitCode}`);
-    try {
-      if ((await fetch(`${baseUrl}/api/health`)).ok) return;
-    } catch { /* not listening yet */ }
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error('the server did not answer /api/health within 60 s');
-}
-
-/** Signs in like the browser does: CSRF token first, then the credentials. */
-async function signIn(baseUrl: string, email: string) {
-  const first = await fetch(`${baseUrl}/api/auth/csrf`);
-  const cookies = new Map<string, string>();
-  const keep = (res: Response) => {
-    for (const c of res.headers.getSetCookie()) {
-      const [pair] = c.split(';');
-      const at = pair.indexOf('=');
-      cookies.set(pair.slice(0, at), pair.slice(at + 1));
-    }
-  };
-  keep(first);
-  const { csrfToken } = (await first.json()) as { csrfToken: string };
-  const cookie = () => [...cookies].map(([k, v]) => `${k}=${v}`).join('; ');
-  const res = await fetch(`${baseUrl}/api/auth/login`, {
-    method: 'POST',
-    headers: { 'content-type': 'application/json', 'x-csrf-token': csrfToken, cookie: cookie() },
-    body: JSON.stringify({ email, password: 'pollen-demo-2026' }),
-  });
-  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status}`);
-  keep(res);
-  const body = (await res.json()) as { csrfToken: string };
-  return { cookie: cookie(), csrfToken: body.csrfToken };
-}
 
 interface RunFigures { requests: number; perSecond: number; p50: number; p95: number; p99: number; errors: number }
 
@@ -107,11 +59,10 @@ const row = (name: string, f: RunFigures) =>
 const verdict = (ok: boolean) => (ok ? 'met' : 'NOT MET');
 
 async function main() {
-  ensureServerBuilt();
   const db = await createBenchDatabase('api');
   const sink = await startSmtpSink();
   const sequelize = createSequelize(db.url, 4);
-  let server: ChildProcess | null = null;
+  let server: BenchServer | null = null;
   try {
     useBuilderDatabase({ sequelize, models: defineModels(sequelize) });
     const today = new Date();
@@ -126,17 +77,10 @@ async function main() {
     }
     await sequelize.query('ANALYZE');
 
-    const port = await freePort();
-    const baseUrl = `http://127.0.0.1:${port}`;
-    server = spawn(process.execPath, ['--enable-source-maps', serverEntry], {
-      stdio: ['ignore', 'ignore', 'inherit'],
-      env: {
-        ...process.env, NODE_ENV: 'production', DATABASE_URL: db.url, HOST: '127.0.0.1', PORT: String(port), LOG_LEVEL: 'warn',
-        WEB_CONCURRENCY: String(PROCESSES), SERVE_CLIENT: 'false', SMTP_PORT: String(sink.smtpPort), MAIL_SINK_URL: `http://127.0.0.1:${sink.httpPort}`,
-        LOGIN_RATE_LIMIT_PER_ACCOUNT: '100000', LOGIN_RATE_LIMIT_PER_ADDRESS: '100000', BLOOM_DIGEST_DELAY_SECONDS: '900',
-      },
+    server = await startBenchServer({
+      DATABASE_URL: db.url, WEB_CONCURRENCY: String(PROCESSES), SMTP_PORT: String(sink.smtpPort), MAIL_SINK_URL: `http://127.0.0.1:${sink.httpPort}`,
     });
-    await waitForHealth(baseUrl, server);
+    const { baseUrl } = server;
     const grower = await signIn(baseUrl, 'grower@orchard.test');
     const keeper = await signIn(baseUrl, 'keeper@apiary.test');
     console.log(`production build, ${PROCESSES} server process(es), ${CONNECTIONS} connections, ${SECONDS} s per read run; demo season + ${OFFERS} listed requests`);
@@ -174,11 +118,7 @@ async function main() {
     console.log(`  read mix p95 <= 25 ms: ${mix.p95.toFixed(1)} ms, ${verdict(mix.p95 <= 25)}`);
     console.log(`  errors = 0: ${totalErrors}, ${verdict(totalErrors === 0)}`);
   } finally {
-    if (server && server.exitCode === null) {
-      const exited = new Promise((r) => server!.once('exit', r));
-      server.kill('SIGTERM');
-      await Promise.race([exited, new Promise((r) => setTimeout(r, 10_000))]);
-    }
+    await server?.stop();
     await sequelize.close();
     await sink.stop();
     await db.drop();
