@@ -53,7 +53,7 @@ export async function createApp(config: Config, options: { now?: () => Date } = 
   app.set('trust proxy', 'loopback');
   const server = createServer(app);
 
-  const passport = createPassport();
+  const passport = createPassport(models);
   const sessionMiddleware = createSessionMiddleware(config, pool);
   const now = options.now ?? (() => new Date());
   const sessionStack = [sessionMiddleware, passport.initialize(), passport.session(), absoluteSessionExpiry(config, now)];

@@ -16,66 +16,20 @@ const modulesDir = join(root, 'server/src/modules');
 /** Tables owned by libraries: express-session's store, the socket.io adapter, umzug's log. */
 const LIBRARY_TABLES = ['user_sessions', 'socket_io_attachments', 'schema_migrations'];
 
-// Still to convert. Each list only shrinks: an entry that is no longer true fails the test.
+// Still to convert. Each list only shrinks: an entry that is no longer true fails the test
+// (soft assertions, so one run reports every list's changes).
 /** App-owned tables that have no model yet. */
-const TABLES_WITHOUT_MODEL_YET: string[] = [
-  'agreement_amendments', 'agreements', 'commitments', 'drop_sites', 'hive_request_blocks', 'hive_request_events',
-  'hive_requests', 'placement_photos', 'placements', 'strength_checks', 'yards',
-];
+const TABLES_WITHOUT_MODEL_YET: string[] = [];
 /** Models no feature module uses yet. */
 const MODELS_NOT_USED_YET: string[] = [
-  'Block', 'BloomWindow', 'WeatherStation', 'DailyTemperature', 'ForecastLow', 'CropStageThreshold',
-  'FrostCriticalTemperature', 'BloomDigestMark', 'PestTrapCount', 'SprayPlan', 'SprayPlanBlock', 'AlertEvent', 'AlertView', 'Refund',
-  'Organization', 'User', 'Invitation', 'PasswordResetToken', 'PestModel', 'Invoice', 'InvoiceLine', 'CreditNote', 'Payment',
-  'Alert', 'InvoiceNumberCounter', 'ProcessedWebhookEvent', 'InvoiceReminder',
+  'AgreementAmendment', 'DropSite', 'HiveRequestBlock', 'IdempotencyKey', 'PlacementPhoto', 'StrengthCheck',
 ];
 /** Module files (relative to server/src/modules) that still hold SQL text outside a `.queries.ts`. */
 const FILES_WITH_SQL_YET: string[] = [
-  'admin/admin.service.ts',
-  'agreements/agreement-create.ts',
-  'agreements/agreements.service.ts',
-  'alerts/alert-dtos.ts',
-  'alerts/alert-recheck.ts',
-  'alerts/alerts.service.ts',
-  'auth/end-sessions.ts',
-  'blocks/block-rows.ts',
-  'blocks/blocks.service.ts',
-  'bloom/bloom-audience.ts',
-  'bloom/bloom-digest.job.ts',
-  'bloom/bloom-windows.service.ts',
-  'bloom/published-reference.ts',
-  'bloom/stage-thresholds.service.ts',
-  'calendar/calendar.service.ts',
-  'commitments/commitments.service.ts',
-  'conflicts/conflict-search.ts',
-  'conflicts/conflict-triggers.ts',
-  'conflicts/stored-spray-check.ts',
   'dashboard/dashboard.service.ts',
   'dashboard/optional-tables.ts',
   'dashboard/season-extras.ts',
-  'health/health.routes.ts',
-  'invoices/invoice-drafting.ts',
-  'invoices/invoice-events.ts',
-  'invoices/invoice-mail.ts',
-  'invoices/invoice-numbers.ts',
-  'invoices/invoice-queries.ts',
-  'invoices/invoice-reports.service.ts',
-  'invoices/invoices.service.ts',
-  'invoices/overdue-reminders.job.ts',
-  'payments/payments-webhook.ts',
-  'payments/payments.service.ts',
   'pests/pests.service.ts',
-  'placements/placement-create.ts',
-  'placements/placements.service.ts',
-  'requests/notify.ts',
-  'requests/request-events.ts',
-  'requests/request-state.ts',
-  'requests/requests.service.ts',
-  'sprays/sprays.service.ts',
-  'weather/chill.service.ts',
-  'weather/season-temperatures.ts',
-  'weather/stations.service.ts',
-  'yards/yards.service.ts',
 ];
 
 function filesUnder(dir: string): string[] {
@@ -153,9 +107,9 @@ describe('the data layer', () => {
 
   it('has a model for every app-owned table, with a matching tableName', () => {
     const missing = appTables.filter((t) => !modelTables.has(t) && !TABLES_WITHOUT_MODEL_YET.includes(t));
-    expect(missing, 'tables with no model').toEqual([]);
+    expect.soft(missing, 'tables with no model').toEqual([]);
     const stale = TABLES_WITHOUT_MODEL_YET.filter((t) => modelTables.has(t) || !appTables.includes(t));
-    expect(stale, 'TABLES_WITHOUT_MODEL_YET lists tables that have a model now (or are gone): remove them').toEqual([]);
+    expect.soft(stale, 'TABLES_WITHOUT_MODEL_YET lists tables that have a model now (or are gone): remove them').toEqual([]);
   });
 
   it('has no model for a table the migrations do not create', () => {
@@ -166,17 +120,17 @@ describe('the data layer', () => {
   it('uses every model in at least one feature module (ctx.models.X, or taken from the registry)', () => {
     const used = modelsUsedByModules();
     const unused = Object.keys(models).filter((n) => !used.has(n) && !MODELS_NOT_USED_YET.includes(n));
-    expect(unused, 'models no feature module uses').toEqual([]);
+    expect.soft(unused, 'models no feature module uses').toEqual([]);
     const stale = MODELS_NOT_USED_YET.filter((n) => used.has(n) || !(n in models));
-    expect(stale, 'MODELS_NOT_USED_YET lists models that are used now: remove them').toEqual([]);
+    expect.soft(stale, 'MODELS_NOT_USED_YET lists models that are used now: remove them').toEqual([]);
   });
 
   it('keeps SQL text in server/src/modules/ to *.queries.ts files', () => {
     const found = sqlOutsideQueryFiles();
     const lines = [...found].filter(([file]) => !FILES_WITH_SQL_YET.includes(file)).flatMap(([, l]) => l);
-    expect(lines, 'SQL outside *.queries.ts').toEqual([]);
+    expect.soft(lines, 'SQL outside *.queries.ts').toEqual([]);
     const stale = FILES_WITH_SQL_YET.filter((f) => !found.has(f));
-    expect(stale, 'FILES_WITH_SQL_YET lists files without SQL now: remove them').toEqual([]);
+    expect.soft(stale, 'FILES_WITH_SQL_YET lists files without SQL now: remove them').toEqual([]);
   });
 
   it('finds SQL text where it stands (the check itself)', () => {

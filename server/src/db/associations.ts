@@ -6,4 +6,32 @@ export function associateModels(m: Models) {
   m.Organization.hasMany(m.User, { foreignKey: 'organizationId', as: 'members' });
   m.User.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
   m.Invitation.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
+  m.Organization.hasMany(m.Invitation, { foreignKey: 'organizationId', as: 'invitations' });
+  m.Invitation.belongsTo(m.User, { foreignKey: 'invitedBy', as: 'inviter' });
+  m.PasswordResetToken.belongsTo(m.User, { foreignKey: 'userId', as: 'user' });
+
+  // blocks, weather, bloom windows, reference thresholds and pests
+  m.Block.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
+  m.Organization.hasMany(m.Block, { foreignKey: 'farmId', as: 'blocks' });
+  m.Block.belongsTo(m.WeatherStation, { foreignKey: 'weatherStationId', as: 'weatherStation' });
+  m.WeatherStation.hasMany(m.Block, { foreignKey: 'weatherStationId', as: 'blocks' });
+  m.Block.hasMany(m.BloomWindow, { foreignKey: 'blockId', as: 'bloomWindows' });
+  m.BloomWindow.belongsTo(m.Block, { foreignKey: 'blockId', as: 'block' });
+  m.BloomWindow.belongsTo(m.User, { foreignKey: 'revisedBy', as: 'reviser' });
+  m.WeatherStation.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
+  m.WeatherStation.hasMany(m.DailyTemperature, { foreignKey: 'stationId', as: 'temperatures' });
+  m.DailyTemperature.belongsTo(m.WeatherStation, { foreignKey: 'stationId', as: 'station' });
+  m.DailyTemperature.belongsTo(m.User, { foreignKey: 'enteredBy', as: 'enterer' });
+  m.WeatherStation.hasMany(m.ForecastLow, { foreignKey: 'stationId', as: 'forecastLows' });
+  m.ForecastLow.belongsTo(m.WeatherStation, { foreignKey: 'stationId', as: 'station' });
+  m.ForecastLow.belongsTo(m.User, { foreignKey: 'enteredBy', as: 'enterer' });
+  m.CropStageThreshold.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
+  m.CropStageThreshold.belongsTo(m.User, { foreignKey: 'updatedBy', as: 'updater' });
+  m.FrostCriticalTemperature.belongsTo(m.User, { foreignKey: 'updatedBy', as: 'updater' });
+  m.BloomDigestMark.belongsTo(m.Organization, { foreignKey: 'apiaryId', as: 'apiary' });
+  m.Block.hasMany(m.PestTrapCount, { foreignKey: 'blockId', as: 'trapCounts' });
+  m.PestTrapCount.belongsTo(m.Block, { foreignKey: 'blockId', as: 'block' });
+  m.PestTrapCount.belongsTo(m.PestModel, { foreignKey: 'pestModelId', as: 'pestModel' });
+  m.PestModel.hasMany(m.PestTrapCount, { foreignKey: 'pestModelId', as: 'trapCounts' });
+  m.PestTrapCount.belongsTo(m.User, { foreignKey: 'recordedBy', as: 'recorder' });
 }

@@ -21,7 +21,7 @@ import { alertsRoutes } from './alerts/alerts.routes.js';
 import { pestsRoutes } from './pests/pests.routes.js';
 import { blocksRoutes } from './blocks/blocks.routes.js';
 import { weatherRoutes } from './weather/weather.routes.js';
-import { bloomRoutes } from './bloom/bloom.routes.js';
+import { blockBloomRoutes, bloomRoutes } from './bloom/bloom.routes.js';
 import { metaRoutes } from './meta/meta.routes.js';
 import { startBloomDigestWorker } from './bloom/bloom-digest.job.js';
 import { subscribeConflictTriggers } from './conflicts/conflict-triggers.js';
@@ -36,6 +36,7 @@ export function apiRoutes(ctx: AppContext, passport: Passport, csrf: Csrf): Rout
   router.use('/auth', authRoutes(ctx, passport, csrf));
   router.use('/meta', metaRoutes(ctx));
   router.use('/blocks', blocksRoutes(ctx));
+  router.use('/blocks', blockBloomRoutes(ctx));
   router.use('/weather', weatherRoutes(ctx));
   router.use('/bloom', bloomRoutes(ctx));
   router.use('/requests', requestsRoutes(ctx));

@@ -1,7 +1,9 @@
 // A planted area of one crop on a farm. Outline and location are PostGIS geometry (SRID
 // 4326); area_m2 comes from the outline (geodesic) or the entered acreage.
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { GeoPoint, GeoPolygon } from '../../../../shared/schemas/common.js';
+import type { Organization } from './organization.model.js';
+import type { WeatherStation } from './weather-station.model.js';
 
 export class Block extends Model<InferAttributes<Block>, InferCreationAttributes<Block>> {
   declare id: CreationOptional<string>;
@@ -22,6 +24,8 @@ export class Block extends Model<InferAttributes<Block>, InferCreationAttributes
   declare degreeDayStart: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare farm?: NonAttribute<Organization>;
+  declare weatherStation?: NonAttribute<WeatherStation | null>;
 }
 
 export function defineBlock(sequelize: Sequelize): typeof Block {

@@ -1,5 +1,7 @@
 // One revision of a block's published bloom window; every revision is kept.
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Block } from './block.model.js';
+import type { User } from './user.model.js';
 
 export class BloomWindow extends Model<InferAttributes<BloomWindow>, InferCreationAttributes<BloomWindow>> {
   declare id: CreationOptional<string>;
@@ -11,6 +13,8 @@ export class BloomWindow extends Model<InferAttributes<BloomWindow>, InferCreati
   declare confidenceNote: string | null;
   declare revisedBy: string | null;
   declare createdAt: CreationOptional<Date>;
+  declare block?: NonAttribute<Block>;
+  declare reviser?: NonAttribute<User | null>;
 }
 
 export function defineBloomWindow(sequelize: Sequelize): typeof BloomWindow {

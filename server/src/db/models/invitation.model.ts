@@ -3,6 +3,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { MemberRole } from '../../../../shared/roles.js';
 import type { Organization } from './organization.model.js';
+import type { User } from './user.model.js';
 
 export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
   declare id: CreationOptional<string>;
@@ -17,6 +18,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare organization?: NonAttribute<Organization>;
+  declare inviter?: NonAttribute<User | null>;
 }
 
 export function defineInvitation(sequelize: Sequelize): typeof Invitation {

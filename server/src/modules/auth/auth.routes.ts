@@ -14,7 +14,7 @@ import type { AppPassport as Passport } from './passport.js';
 import type { AppContext } from '../../context.js';
 
 export function authRoutes(ctx: AppContext, passport: Passport, csrf: Csrf): Router {
-  const controller = createAuthController(passport, csrf, ctx.now, createAuthService(ctx.sequelize), createPasswordResetService(ctx));
+  const controller = createAuthController(passport, csrf, ctx.now, createAuthService(ctx), createPasswordResetService(ctx));
   const router = Router();
   router.get('/csrf', controller.csrfToken);
   router.post('/login', ...createLoginRateLimits(ctx.config), validate({ body: loginBody }), controller.login);

@@ -1,8 +1,6 @@
 // Account rules: sign-up creates an organization and its owner; preferences.
-import type { Sequelize } from 'sequelize';
 import { UniqueConstraintError } from 'sequelize';
-import { Organization } from '../../db/models/organization.model.js';
-import { User } from '../../db/models/user.model.js';
+import type { AppContext } from '../../context.js';
 import { badRequest, conflict } from '../../errors/http-errors.js';
 import { hashPassword } from './passwords.js';
 import { isCommonPassword } from './common-passwords.js';
@@ -16,7 +14,9 @@ export function assertAcceptablePassword(password: string, field = 'password') {
   }
 }
 
-export function createAuthService(sequelize: Sequelize) {
+export function createAuthService(ctx: AppContext) {
+  const { sequelize, models } = ctx;
+  const { Organization, User } = models;
   return {
     async signup(body: SignupBody): Promise<AuthUser> {
       assertAcceptablePassword(body.password);
@@ -33,7 +33,7 @@ export function createAuthService(sequelize: Sequelize) {
           );
           return user.id;
         });
-        return toAuthUser((await findActiveUser({ id: userId }))!);
+        return toAuthUser((await findActiveUser(models, { id: userId }))!);
       } catch (err) {
         if (err instanceof UniqueConstraintError) throw conflict('An account with that e-mail already exists.', { email: 'is already registered' });
         throw err;
@@ -45,7 +45,7 @@ export function createAuthService(sequelize: Sequelize) {
         { ...(body.units ? { units: body.units } : {}), ...(body.timeZone !== undefined ? { timeZone: body.timeZone } : {}) },
         { where: { id: user.id } },
       );
-      return toAuthUser((await findActiveUser({ id: user.id }))!);
+      return toAuthUser((await findActiveUser(models, { id: user.id }))!);
     },
   };
 }

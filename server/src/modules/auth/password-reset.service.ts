@@ -3,8 +3,6 @@
 // token of that user and ends their sessions.
 import { Op } from 'sequelize';
 import type { AppContext } from '../../context.js';
-import { PasswordResetToken } from '../../db/models/password-reset-token.model.js';
-import { User } from '../../db/models/user.model.js';
 import { badRequest } from '../../errors/http-errors.js';
 import { enqueueEmail } from '../../jobs/send-email.job.js';
 import { hashPassword } from './passwords.js';
@@ -18,6 +16,7 @@ export const resetTokenLifetimeMs = 60 * 60_000;
 const invalidToken = () => badRequest('This reset link is not valid any more. Please ask for a new one.', { token: 'is invalid, used or expired; ask for a new link' });
 
 export function createPasswordResetService(ctx: AppContext) {
+  const { PasswordResetToken, User } = ctx.models;
   return {
     async request({ email }: PasswordResetRequestBody): Promise<void> {
       const user = await User.findOne({ where: { email, disabledAt: null } });

@@ -38,7 +38,7 @@ export function createForecastService(ctx: AppContext, deps: { blocks: BlocksSer
       if (!station) notes.push('Choose a weather station for this block to accumulate degree days.');
 
       const through = DateTime.fromISO(from, { zone: 'UTC' }).plus({ days: SEASON_DAYS }).toISODate()!;
-      const temperatures = station ? await loadSeasonTemperatures(ctx.sequelize, station.id, from, through) : null;
+      const temperatures = station ? await loadSeasonTemperatures(ctx, station.id, from, through) : null;
       if (station && !temperatures?.days.length) notes.push(`The station has no temperatures from ${from}: upload or enter them.`);
       const accumulated = accumulateDegreeDays(temperatures?.days ?? [], { lower: lowerF, upper: upperF, method, from });
       const stageThresholds = thresholds.map((t) => ({ stage: t.stage, label: t.label, ddLow: t.ddLowF, ddHigh: t.ddHighF }));
@@ -71,3 +71,5 @@ export function createForecastService(ctx: AppContext, deps: { blocks: BlocksSer
     },
   };
 }
+
+export type ForecastService = ReturnType<typeof createForecastService>;

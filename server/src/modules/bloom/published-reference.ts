@@ -3,6 +3,7 @@
 // (TRADE.md §6). Inserted by migration 0004 and again by the demo seed after it empties
 // the tables; rows already there (perhaps edited) are left alone.
 import type { Sequelize } from 'sequelize';
+import { insertReferenceRows } from './bloom.queries.js';
 
 export const CORNELL = 'Cornell / UMass fruit newsletters (apple, base 43 °F from March 1): published range';
 export const BLOOM_NOTE = 'Interpolated between the published pink and petal-fall ranges (from memory; no single published value): check locally';
@@ -44,19 +45,6 @@ export const stageRows: Array<[string, string, string, number, number, number, n
   ['apple', 'petal-fall', 'Petal fall', 4, 43, 439, 523, CORNELL],
 ];
 
-export async function insertPublishedReference(sequelize: Sequelize) {
-  for (const [crop, stage, label, sortOrder, baseF, ddLowF, ddHighF, source] of stageRows) {
-    await sequelize.query(
-      `INSERT INTO crop_stage_thresholds (crop, stage, label, sort_order, base_f, dd_low_f, dd_high_f, source)
-       VALUES (:crop, :stage, :label, :sortOrder, :baseF, :ddLowF, :ddHighF, :source) ON CONFLICT DO NOTHING`,
-      { replacements: { crop, stage, label, sortOrder, baseF, ddLowF, ddHighF, source } },
-    );
-  }
-  for (const [index, [crop, label, stage, kill10, kill90]] of frostRows.entries()) {
-    await sequelize.query(
-      `INSERT INTO frost_critical_temperatures (crop, stage_label, stage, sort_order, kill10_f, kill90_f, source)
-       VALUES (:crop, :label, :stage, :sortOrder, :kill10, :kill90, :source) ON CONFLICT DO NOTHING`,
-      { replacements: { crop, label, stage, sortOrder: index, kill10, kill90, source: WSU } },
-    );
-  }
+export function insertPublishedReference(sequelize: Sequelize): Promise<void> {
+  return insertReferenceRows(sequelize, stageRows, frostRows, WSU);
 }

@@ -1,16 +1,12 @@
-// GET /api/health: 200 only when the database answers a query, else 503.
+// /api/health: whether the app and its database answer (for load balancers and scripts).
 import { Router } from 'express';
 import type { AppContext } from '../../context.js';
+import { createHealthService } from './health.service.js';
+import { createHealthController } from './health.controller.js';
 
 export function healthRoutes(ctx: AppContext): Router {
+  const c = createHealthController(createHealthService(ctx));
   const router = Router();
-  router.get('/', async (_req, res) => {
-    try {
-      await ctx.sequelize.query('SELECT 1', { plain: true });
-      res.json({ status: 'ok', database: 'ok' });
-    } catch {
-      res.status(503).json({ status: 'degraded', database: 'unreachable' });
-    }
-  });
+  router.get('/', c.health);
   return router;
 }

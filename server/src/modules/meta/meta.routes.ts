@@ -1,18 +1,14 @@
-// /api/meta: public settings the client needs before sign-in (the map tile server; an
-// empty URL means maps are drawn without a base layer).
+// /api/meta: public settings the client needs before sign-in.
 import { Router } from 'express';
 import type { AppContext } from '../../context.js';
+import { createMetaService } from './meta.service.js';
+import { createMetaController } from './meta.controller.js';
 
-export interface MetaDto {
-  mapTileUrl: string;
-  mapAttribution: string;
-}
+export type { MetaDto } from './meta.service.js';
 
 export function metaRoutes(ctx: AppContext): Router {
+  const c = createMetaController(createMetaService(ctx));
   const router = Router();
-  router.get('/', (_req, res) => {
-    const meta: MetaDto = { mapTileUrl: ctx.config.mapTileUrl, mapAttribution: ctx.config.mapAttribution };
-    res.json(meta);
-  });
+  router.get('/', c.settings);
   return router;
 }

@@ -4,9 +4,6 @@
 // keeps their account row (disabled); accepting a new invitation brings it back.
 import type { Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
-import { Invitation } from '../../db/models/invitation.model.js';
-import { Organization } from '../../db/models/organization.model.js';
-import { User } from '../../db/models/user.model.js';
 import { conflict, notFound } from '../../errors/http-errors.js';
 import { hashEmailedToken } from '../auth/emailed-tokens.js';
 import { hashPassword } from '../auth/passwords.js';
@@ -18,6 +15,7 @@ import type { AcceptInvitationBody, InvitationPreview } from '../../../../shared
 const invalidInvitation = () => notFound('This invitation (it may have expired, been used or been withdrawn)');
 
 export function createInvitationAcceptanceService(ctx: AppContext) {
+  const { Invitation, Organization, User } = ctx.models;
   async function findOpen(token: string, transaction?: Transaction) {
     const invitation = await Invitation.findOne({
       where: { tokenHash: hashEmailedToken(token) },
@@ -55,7 +53,7 @@ export function createInvitationAcceptanceService(ctx: AppContext) {
         await invitation.update({ acceptedAt: ctx.now() }, { transaction });
         return user.id;
       });
-      return toAuthUser((await findActiveUser({ id: userId }))!);
+      return toAuthUser((await findActiveUser(ctx.models, { id: userId }))!);
     },
   };
 }

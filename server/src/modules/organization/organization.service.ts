@@ -4,15 +4,16 @@
 // history they wrote keeps its author) and their sessions end at once.
 import { Op, type Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
-import { Invitation } from '../../db/models/invitation.model.js';
-import { Organization } from '../../db/models/organization.model.js';
-import { User } from '../../db/models/user.model.js';
+import type { Models } from '../../db/models/index.js';
+import type { Invitation } from '../../db/models/invitation.model.js';
+import type { User } from '../../db/models/user.model.js';
 import { badRequest, conflict, notFound } from '../../errors/http-errors.js';
 import { enqueueEmail } from '../../jobs/send-email.job.js';
 import { endSessionsOf } from '../auth/end-sessions.js';
 import { emailedLink, newEmailedToken } from '../auth/emailed-tokens.js';
 import type { AuthUser } from '../auth/auth-user.js';
-import { roleLabels, rolesForKind } from '../../../../shared/roles.js';
+import { rolesForKind } from '../../../../shared/roles.js';
+import { memberRoleSet } from '../../../../shared/labels/organizations.js';
 import type { InvitationDto, InviteBody, MemberDto, MemberRoleValue, RoleChangeBody } from '../../../../shared/schemas/organization.js';
 
 export const invitationLifetimeMs = 7 * 24 * 3_600_000;
@@ -48,7 +49,7 @@ function assertRoleFitsKind(role: MemberRoleValue, kind: 'farm' | 'apiary') {
 }
 
 /** Locks the organization row so two owners changing roles at once cannot leave it without an owner. */
-async function assertAnotherOwnerRemains(organizationId: string, member: User, transaction: Transaction) {
+async function assertAnotherOwnerRemains({ Organization, User }: Models, organizationId: string, member: User, transaction: Transaction) {
   if (member.role !== 'owner') return;
   await Organization.findByPk(organizationId, { transaction, lock: transaction.LOCK.UPDATE });
   const owners = await User.count({ where: { organizationId, role: 'owner', disabledAt: null }, transaction });
@@ -56,6 +57,7 @@ async function assertAnotherOwnerRemains(organizationId: string, member: User, t
 }
 
 export function createOrganizationService(ctx: AppContext) {
+  const { Invitation, User } = ctx.models;
   const openInvitation = (organizationId: string) => ({
     organizationId,
     acceptedAt: { [Op.is]: null },
@@ -81,7 +83,7 @@ export function createOrganizationService(ctx: AppContext) {
         const member = await findMember(user, memberId, transaction);
         assertRoleFitsKind(role, org.kind);
         if (member.role === role) return toMemberDto(member);
-        if (role !== 'owner') await assertAnotherOwnerRemains(org.id, member, transaction);
+        if (role !== 'owner') await assertAnotherOwnerRemains(ctx.models, org.id, member, transaction);
         await member.update({ role }, { transaction });
         return toMemberDto(member);
       });
@@ -91,7 +93,7 @@ export function createOrganizationService(ctx: AppContext) {
       const org = organizationOf(user);
       const removedId = await ctx.sequelize.transaction(async (transaction) => {
         const member = await findMember(user, memberId, transaction);
-        await assertAnotherOwnerRemains(org.id, member, transaction);
+        await assertAnotherOwnerRemains(ctx.models, org.id, member, transaction);
         await member.update({ disabledAt: ctx.now() }, { transaction });
         return member.id;
       });
@@ -99,10 +101,12 @@ export function createOrganizationService(ctx: AppContext) {
     },
 
     async listInvitations(user: AuthUser): Promise<InvitationDto[]> {
-      const invitations = await Invitation.findAll({ where: openInvitation(organizationOf(user).id), order: [['createdAt', 'DESC']] });
-      const inviterIds = [...new Set(invitations.map((i) => i.invitedBy).filter((id): id is string => Boolean(id)))];
-      const inviters = new Map((await User.findAll({ where: { id: inviterIds } })).map((u) => [u.id, u.name]));
-      return invitations.map((i) => toInvitationDto(i, i.invitedBy ? (inviters.get(i.invitedBy) ?? null) : null));
+      const invitations = await Invitation.findAll({
+        where: openInvitation(organizationOf(user).id),
+        include: [{ model: User, as: 'inviter', attributes: ['name'] }],
+        order: [['createdAt', 'DESC']],
+      });
+      return invitations.map((i) => toInvitationDto(i, i.inviter?.name ?? null));
     },
 
     /** Inviting an address again replaces its open invitation (and sends a new link). */
@@ -134,7 +138,7 @@ export function createOrganizationService(ctx: AppContext) {
         text: [
           'Hello,',
           '',
-          `${user.name} invited you to join ${org.name} on Pollenpact as ${roleLabels[role]}.`,
+          `${user.name} invited you to join ${org.name} on Pollenpact as ${memberRoleSet.labels[role]}.`,
           `Set your password and sign in here: ${link}`,
           '',
           'The link works once and expires in 7 days. If you did not expect this, ignore this e-mail.',

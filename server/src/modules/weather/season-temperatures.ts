@@ -2,10 +2,12 @@
 // observation (and any gap) estimated: from the station's own average of earlier seasons
 // for that calendar day when it has such data, otherwise from a simple normal, the mean of
 // the last 14 observed days held flat. Estimated days are flagged so charts can say so.
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { Op } from 'sequelize';
 import { DateTime } from 'luxon';
+import type { AppContext } from '../../context.js';
 import type { DailyTemperature } from '../../../../shared/domain/degree-days.js';
 import { celsiusToFahrenheit } from '../../../../shared/domain/units.js';
+import { calendarDayNormals } from './weather.queries.js';
 
 export const SIMPLE_NORMAL_DAYS = 14;
 /** Data at least this many days older than the last observation count as earlier seasons. */
@@ -17,21 +19,18 @@ export interface SeasonTemperatures {
   extension: null | { kind: 'station-normals' | 'simple-normal'; fromDay: string; description: string };
 }
 
-export async function loadSeasonTemperatures(sequelize: Sequelize, stationId: string, from: string, through: string): Promise<SeasonTemperatures> {
-  const observed = await sequelize.query<{ day: string; tmin_c: number; tmax_c: number }>(
-    `SELECT to_char(day, 'YYYY-MM-DD') AS day, tmin_c, tmax_c FROM daily_temperatures
-     WHERE station_id = :stationId AND day BETWEEN :from::date AND :through::date ORDER BY day`,
-    { replacements: { stationId, from, through }, type: QueryTypes.SELECT },
-  );
+export async function loadSeasonTemperatures(ctx: AppContext, stationId: string, from: string, through: string): Promise<SeasonTemperatures> {
+  const observed = (await ctx.models.DailyTemperature.findAll({
+    attributes: ['day', 'tminC', 'tmaxC'],
+    where: { stationId, day: { [Op.between]: [from, through] } },
+    order: [['day', 'ASC']],
+  })).map((t) => ({ day: t.day, tmin_c: t.tminC, tmax_c: t.tmaxC }));
   if (!observed.length) return { days: [], lastObserved: null, extension: null };
   const lastObserved = observed.at(-1)!.day;
   const byDay = new Map(observed.map((o) => [o.day, o]));
 
-  const normals = await sequelize.query<{ md: string; tmin_c: number; tmax_c: number; seasons: string }>(
-    `SELECT to_char(day, 'MM-DD') AS md, avg(tmin_c) AS tmin_c, avg(tmax_c) AS tmax_c, count(DISTINCT extract(year FROM day)) AS seasons
-     FROM daily_temperatures WHERE station_id = :stationId AND day < :lastObserved::date - ${EARLIER_SEASON_GAP_DAYS} GROUP BY 1`,
-    { replacements: { stationId, lastObserved }, type: QueryTypes.SELECT },
-  );
+  const earlierThan = DateTime.fromISO(lastObserved, { zone: 'UTC' }).minus({ days: EARLIER_SEASON_GAP_DAYS }).toISODate()!;
+  const normals = await calendarDayNormals(ctx.sequelize, stationId, earlierThan);
   const normalByMonthDay = new Map(normals.map((n) => [n.md, n]));
   const recent = observed.slice(-SIMPLE_NORMAL_DAYS);
   const simple = {
