@@ -24,6 +24,8 @@ const TABLES_WITHOUT_MODEL_YET: string[] = [];
 const MODELS_NOT_USED_YET: string[] = [
   'AgreementAmendment', 'DropSite', 'HiveRequestBlock', 'IdempotencyKey', 'PlacementPhoto', 'StrengthCheck',
 ];
+/** Modules with a routes file but no controller yet. */
+const MODULES_WITHOUT_CONTROLLER_YET: string[] = ['alerts', 'sprays'];
 /** Module files (relative to server/src/modules) that still hold SQL text outside a `.queries.ts`. */
 const FILES_WITH_SQL_YET: string[] = [
   'dashboard/dashboard.service.ts',
@@ -96,6 +98,32 @@ function modelsUsedByModules(): Set<string> {
   return used;
 }
 
+/** Which feature modules each module imports from (`../<other>/…` in server/src/modules/<module>/). */
+function moduleImports(): Map<string, Set<string>> {
+  const graph = new Map<string, Set<string>>();
+  for (const file of filesUnder(modulesDir)) {
+    const module = relative(modulesDir, file).split('/')[0];
+    if (!module.includes('.')) {
+      const uses = graph.get(module) ?? new Set<string>();
+      for (const m of readFileSync(file, 'utf8').matchAll(/from '\.\.\/([a-z-]+)\//g)) if (m[1] !== module) uses.add(m[1]);
+      graph.set(module, uses);
+    }
+  }
+  return graph;
+}
+
+function importCycles(graph: Map<string, Set<string>>): string[] {
+  const cycles = new Set<string>();
+  const walk = (path: string[]) => {
+    for (const next of graph.get(path.at(-1)!) ?? []) {
+      if (path.includes(next)) cycles.add([...path.slice(path.indexOf(next)), next].join(' -> '));
+      else walk([...path, next]);
+    }
+  };
+  for (const module of graph.keys()) walk([module]);
+  return [...cycles].sort();
+}
+
 describe('the data layer', () => {
   const appTables = migrationTables().filter((t) => !LIBRARY_TABLES.includes(t));
 
@@ -131,6 +159,25 @@ describe('the data layer', () => {
     expect.soft(lines, 'SQL outside *.queries.ts').toEqual([]);
     const stale = FILES_WITH_SQL_YET.filter((f) => !found.has(f));
     expect.soft(stale, 'FILES_WITH_SQL_YET lists files without SQL now: remove them').toEqual([]);
+  });
+
+  it('has modules use each other in one direction only (no import cycle between feature modules)', () => {
+    const graph = moduleImports();
+    expect(graph.get('bloom')).toContain('blocks'); // the check sees imports at all
+    expect(importCycles(graph)).toEqual([]);
+  });
+
+  it('finds a cycle where there is one (the check itself)', () => {
+    expect(importCycles(new Map([['a', new Set(['b'])], ['b', new Set(['a'])]]))).toEqual(['a -> b -> a', 'b -> a -> b']);
+  });
+
+  it('gives every module with routes a controller (routes -> controller -> service -> model)', () => {
+    const routed = readdirSync(modulesDir, { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name)
+      .filter((m) => filesUnder(join(modulesDir, m)).some((f) => f.endsWith(`/${m}.routes.ts`)));
+    const has = (m: string) => filesUnder(join(modulesDir, m)).some((f) => f.endsWith(`/${m}.controller.ts`));
+    expect(routed.length).toBeGreaterThan(10);
+    expect.soft(routed.filter((m) => !has(m) && !MODULES_WITHOUT_CONTROLLER_YET.includes(m)), 'modules without a controller').toEqual([]);
+    expect.soft(MODULES_WITHOUT_CONTROLLER_YET.filter((m) => has(m) || !routed.includes(m)), 'MODULES_WITHOUT_CONTROLLER_YET lists modules that have one now: remove them').toEqual([]);
   });
 
   it('finds SQL text where it stands (the check itself)', () => {
