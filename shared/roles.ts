@@ -27,11 +27,3 @@ export function rolesForKind(kind: OrganizationKind): readonly MemberRole[] {
   return kind === 'farm' ? farmRoles : apiaryRoles;
 }
 
-export const roleLabels: Record<MemberRole, string> = {
-  owner: 'Owner',
-  manager: 'Manager',
-  applicator: 'Applicator',
-  crew: 'Field crew',
-  viewer: 'Viewer',
-  admin: 'Platform admin',
-};

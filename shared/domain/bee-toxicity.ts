@@ -58,8 +58,3 @@ export function productBeeHazard(label: { ld50UgPerBee: number | null; rt25Hours
   };
 }
 
-export const beeToxicityLabels: Record<BeeToxicityClass, string> = {
-  'highly-toxic': 'Highly toxic to bees (LD50 below 2 µg/bee)',
-  'moderately-toxic': 'Moderately toxic to bees (LD50 2 to under 11 µg/bee)',
-  'practically-nontoxic': 'Practically nontoxic to bees (LD50 11 µg/bee or more)',
-};

@@ -5,12 +5,13 @@
 import { pathToFileURL } from 'node:url';
 import { policyTables } from '../../server/src/modules/policies.js';
 import { isAllowed } from '../../server/src/middleware/authenticate.js';
-import { allRoleKeys, roleLabels, type RoleKey } from '../../shared/roles.js';
+import { allRoleKeys, type RoleKey } from '../../shared/roles.js';
+import { memberRoleSet } from '../../shared/labels/organizations.js';
 
 export const permissionsStart = '<!-- permissions:start (generated from server/src/modules/policies.ts) -->';
 export const permissionsEnd = '<!-- permissions:end -->';
 
-const columnLabel = (role: RoleKey) => (role === 'admin' ? 'admin' : `${role.split(':')[0]} ${roleLabels[role.split(':')[1] as keyof typeof roleLabels].toLowerCase()}`);
+const columnLabel = (role: RoleKey) => (role === 'admin' ? 'admin' : `${role.split(':')[0]} ${memberRoleSet.labels[role.split(':')[1] as keyof typeof memberRoleSet.labels].toLowerCase()}`);
 
 export function renderPermissionsTable(): string {
   const header = `| feature · action | ${allRoleKeys.map(columnLabel).join(' | ')} |`;

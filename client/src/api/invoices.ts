@@ -1,13 +1,10 @@
-// Invoice and payment calls: lists and reports, draft, issue, void, credit notes, manual
-// payments, refunds, the online checkout, and the live "invoice changed" event.
+// Invoice calls (server module invoices): lists and reports, draft, issue, void, credit notes, and the file addresses.
 import { http } from './http';
-import { connectSocket } from './socket';
 import type {
-  BillableAgreementDto, CheckoutDto, CreditNoteInput, DraftInvoiceInput, InvoiceDto, InvoiceSummaryDto, ManualPaymentInput, PayablesDto,
-  ReceivablesDto, RefundInput, UpdateDraftInput,
+  BillableAgreementDto, CreditNoteInput, DraftInvoiceInput, InvoiceDto, InvoiceSummaryDto, PayablesDto,
+  ReceivablesDto, UpdateDraftInput,
 } from '@shared/schemas/invoices';
 import type { InvoiceStatus } from '@shared/domain/invoice-pricing';
-import type { ServerToClientEvents } from '@shared/events';
 
 type Season = { season: number };
 
@@ -25,21 +22,8 @@ export const invoicesApi = {
   addCreditNote: (id: string, body: CreditNoteInput) => http.post<{ invoice: InvoiceDto }>(`/invoices/${id}/credit-notes`, body),
 };
 
-export const paymentsApi = {
-  checkout: (invoiceId: string) => http.post<CheckoutDto>('/payments/checkout', { invoiceId }),
-  recordManual: (body: ManualPaymentInput) => http.post<{ invoice: InvoiceDto }>('/payments', body),
-  refund: (paymentId: string, body: RefundInput) => http.post<{ refundId: string }>(`/payments/${paymentId}/refunds`, body),
-};
-
 export const invoiceFileUrls = {
   invoicesCsv: '/api/invoices/export.csv',
   paymentsCsv: '/api/payments/export.csv',
   pdf: (id: string) => `/api/invoices/${id}/pdf`,
 };
-
-/** Calls the handler whenever an invoice of the user's business changes; returns the unsubscribe. */
-export function onInvoiceUpdated(handler: ServerToClientEvents['invoice:updated']): () => void {
-  const socket = connectSocket();
-  socket.on('invoice:updated', handler);
-  return () => socket.off('invoice:updated', handler);
-}

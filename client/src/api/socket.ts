@@ -1,4 +1,5 @@
-// The one socket.io connection, opened after sign-in with the session cookie.
+// The one socket.io connection, opened after sign-in with the session cookie, and the one
+// way to listen to what the server announces on it.
 import { io, type Socket } from 'socket.io-client';
 import type { ClientToServerEvents, ServerToClientEvents } from '@shared/events';
 
@@ -18,4 +19,13 @@ export function disconnectSocket() {
 
 export function currentSocket(): AppSocket | null {
   return socket;
+}
+
+type ServerEvent = keyof ServerToClientEvents;
+
+/** Listens to one server event; returns the unsubscribe. Pages use useSocketEvent(), which unsubscribes on unmount. */
+export function onServerEvent<E extends ServerEvent>(event: E, handler: ServerToClientEvents[E]): () => void {
+  const live = connectSocket();
+  live.on(event, handler as never);
+  return () => live.off(event, handler as never);
 }

@@ -1,6 +1,7 @@
 // The navigation, by side and role. A user sees only what their role may open; the
 // router guard enforces the same rule. Features add their entries.
 import type { RoleKey } from '@shared/roles';
+import { can, type PolicyAction } from '@shared/policies/index';
 import type { RouteName, Side } from '@/router/routes';
 
 export interface NavItem {
@@ -8,7 +9,7 @@ export interface NavItem {
   icon: string;
   to: RouteName;
   sides: Side[];
-  roles?: RoleKey[];
+  can?: PolicyAction;
 }
 
 export const navItems: NavItem[] = [
@@ -19,16 +20,16 @@ export const navItems: NavItem[] = [
   { label: 'Sprays', icon: 'pi pi-filter', to: 'sprays', sides: ['farm'] },
   { label: 'Hive requests', icon: 'pi pi-send', to: 'requests', sides: ['farm', 'apiary'] },
   { label: 'Agreements', icon: 'pi pi-file-check', to: 'agreements', sides: ['farm', 'apiary'] },
-  { label: 'Drop sites', icon: 'pi pi-map-marker', to: 'placements', sides: ['farm', 'apiary'] },
+  { label: 'Placements', icon: 'pi pi-map-marker', to: 'placements', sides: ['farm', 'apiary'] },
   { label: 'Yards', icon: 'pi pi-home', to: 'yards', sides: ['apiary'] },
   { label: 'Spray alerts', icon: 'pi pi-bell', to: 'alerts', sides: ['farm', 'apiary'] },
-  { label: 'Invoices', icon: 'pi pi-receipt', to: 'invoices', sides: ['farm', 'apiary'], roles: ['apiary:owner', 'apiary:manager', 'apiary:viewer', 'farm:owner', 'farm:manager', 'farm:viewer'] },
+  { label: 'Invoices', icon: 'pi pi-receipt', to: 'invoices', sides: ['farm', 'apiary'], can: 'invoices.read' },
   { label: 'Season timeline', icon: 'pi pi-chart-bar', to: 'season-timeline', sides: ['farm', 'apiary'] },
   { label: 'Season map', icon: 'pi pi-map', to: 'season-map', sides: ['farm', 'apiary'] },
-  { label: 'Members', icon: 'pi pi-users', to: 'members', sides: ['farm', 'apiary'], roles: ['farm:owner', 'apiary:owner'] },
+  { label: 'Members', icon: 'pi pi-users', to: 'members', sides: ['farm', 'apiary'], can: 'organization.invite' },
 ];
 
 export function navFor(side: Side | null, role: RoleKey | null): NavItem[] {
   if (!side || !role) return [];
-  return navItems.filter((item) => item.sides.includes(side) && (!item.roles || item.roles.includes(role)));
+  return navItems.filter((item) => item.sides.includes(side) && (!item.can || can(role, item.can)));
 }

@@ -4,6 +4,7 @@
 // sign-in, with the page to come back to.
 import { createRouter, createWebHistory } from 'vue-router';
 import { routes, type RouteName } from './routes';
+import { can } from '@shared/policies/index';
 import { useSessionStore } from '@/stores/session';
 import { pinia } from '@/plugins/pinia';
 import { setUnauthenticatedHandler } from '@/api/http';
@@ -22,7 +23,7 @@ router.beforeEach(async (to) => {
   }
   if (!session.user) return { name: 'sign-in', query: { redirect: to.fullPath } };
   if (to.meta.sides && !to.meta.sides.includes(session.side!)) return { name: 'home' };
-  if (to.meta.roles && !to.meta.roles.includes(session.roleKey!)) return { name: 'home' };
+  if (to.meta.can && !can(session.roleKey, to.meta.can)) return { name: 'home' };
   return true;
 });
 

@@ -2,15 +2,12 @@
 // (404 for another organization's data) is done by each service's queries.
 import type { Request, RequestHandler } from 'express';
 import { unauthenticated, forbidden } from '../errors/http-errors.js';
-import type { RoleKey } from '../../../shared/roles.js';
 import type { AuthUser } from '../modules/auth/auth-user.js';
 
-/** A feature's permissions: each action lists the roles that may do it. */
-export type PolicyTable<Action extends string = string> = Readonly<Record<Action, readonly RoleKey[]>>;
+import { isAllowed, type PolicyTable } from '../../../shared/policies/policy-table.js';
 
-export function isAllowed(table: PolicyTable, action: string, roleKey: RoleKey): boolean {
-  return table[action]?.includes(roleKey) ?? false;
-}
+/** A feature's permissions (shared/policies): each action lists the roles that may do it. */
+export { isAllowed, type PolicyTable };
 
 export const requireUser: RequestHandler = (req, _res, next) => {
   if (!req.user) return next(unauthenticated());

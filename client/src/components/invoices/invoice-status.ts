@@ -1,9 +1,5 @@
-// Words and tag colours for the invoice states.
+// Tag colours for the invoice states (their words: shared/labels/invoices.ts).
 import type { InvoiceStatus } from '@shared/domain/invoice-pricing';
-
-export const invoiceStatusLabels: Record<InvoiceStatus, string> = {
-  draft: 'Draft', issued: 'Issued', 'partly-paid': 'Partly paid', paid: 'Paid', overdue: 'Overdue', void: 'Void',
-};
 
 export const invoiceStatusSeverity: Record<InvoiceStatus, 'secondary' | 'info' | 'warn' | 'success' | 'danger' | 'contrast'> = {
   draft: 'secondary', issued: 'info', 'partly-paid': 'warn', paid: 'success', overdue: 'danger', void: 'contrast',

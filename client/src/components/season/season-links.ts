@@ -2,10 +2,12 @@
 // app has and the signed-in user's side and role may open. An item with none opens in place.
 import type { Router, RouteLocationRaw } from 'vue-router';
 import type { TimelineItem } from '@shared/schemas/dashboard';
-import type { RoleKey } from '@shared/roles';
+import type { RouteMeta } from 'vue-router';
+import { can } from '@shared/policies/index';
 import { useSessionStore } from '@/stores/session';
+import { routeTo, type RouteName } from '@/router/routes';
 
-const candidates: Record<TimelineItem['kind'] | 'block' | 'placement-field', string[]> = {
+const candidates: Record<TimelineItem['kind'] | 'block' | 'placement-field', RouteName[]> = {
   bloom: ['block'],
   block: ['block'],
   placement: ['agreement'],
@@ -15,14 +17,11 @@ const candidates: Record<TimelineItem['kind'] | 'block' | 'placement-field', str
 };
 
 export function pageFor(router: Router, kind: keyof typeof candidates, id: string): RouteLocationRaw | null {
-  const session = useSessionStore();
   for (const name of candidates[kind]) {
     if (!router.hasRoute(name)) continue;
-    const target = router.resolve({ name, params: { id } });
-    const meta = target.meta;
-    if (meta.sides && (!session.side || !meta.sides.includes(session.side))) continue;
-    if (meta.roles && (!session.roleKey || !meta.roles.includes(session.roleKey as RoleKey))) continue;
-    return target.matched.at(-1)?.path.includes(':id') ? { name, params: { id } } : { name };
+    const target = router.resolve(routeTo(name, { id }));
+    if (!mayOpen(target.meta)) continue;
+    return target.matched.at(-1)?.path.includes(':id') ? routeTo(name, { id }) : routeTo(name);
   }
   return null;
 }
@@ -36,11 +35,14 @@ export function blockLocation(router: Router, blockId: string): RouteLocationRaw
 }
 
 /** A page without an id (a list, a "new" form), when the user may open it. */
-export function routeIfAllowed(router: Router, name: string): RouteLocationRaw | null {
+export function routeIfAllowed(router: Router, name: RouteName): RouteLocationRaw | null {
   if (!router.hasRoute(name)) return null;
+  return mayOpen(router.resolve(routeTo(name)).meta) ? routeTo(name) : null;
+}
+
+/** The router guard's rule: the user's side and the route's policy action. */
+function mayOpen(meta: RouteMeta): boolean {
   const session = useSessionStore();
-  const meta = router.resolve({ name }).meta;
-  if (meta.sides && (!session.side || !meta.sides.includes(session.side))) return null;
-  if (meta.roles && (!session.roleKey || !meta.roles.includes(session.roleKey as RoleKey))) return null;
-  return { name };
+  if (meta.sides && (!session.side || !meta.sides.includes(session.side))) return false;
+  return !meta.can || can(session.roleKey, meta.can);
 }

@@ -1,9 +1,2 @@
-// The platform admin's read-only views: only the admin role opens them.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const adminPolicy = {
-  viewOrganizations: ['admin'],
-  viewUsers: ['admin'],
-  viewEmails: ['admin'],
-  viewQueues: ['admin'],
-} as const satisfies PolicyTable;
+// The admin policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { adminPolicy } from '../../../../shared/policies/admin.js';

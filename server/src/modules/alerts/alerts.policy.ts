@@ -1,7 +1,2 @@
-// Who may read and answer the conflict alerts of their organization.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const alertsPolicy = {
-  list: ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer', 'apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'],
-  answer: ['farm:owner', 'farm:manager', 'farm:applicator', 'apiary:owner', 'apiary:manager', 'apiary:crew'],
-} as const satisfies PolicyTable;
+// The alerts policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { alertsPolicy } from '../../../../shared/policies/alerts.js';

@@ -1,9 +1,2 @@
-// Who may use the account routes that need a signed-in user: everyone signed in.
-// Sign-up, sign-in, CSRF, password reset and invitation acceptance are public.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-import { allRoleKeys } from '../../../../shared/roles.js';
-
-export const authPolicy = {
-  viewSelf: allRoleKeys,
-  updatePreferences: allRoleKeys,
-} as const satisfies PolicyTable;
+// The auth policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { authPolicy } from '../../../../shared/policies/auth.js';

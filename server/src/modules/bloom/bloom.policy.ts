@@ -1,12 +1,2 @@
-// Who may do what with bloom reference data and bloom windows. Stage thresholds: every
-// farm member and the admin read them; farm owners/managers keep their farm's own; the
-// platform admin edits the published defaults and the frost critical temperatures.
-// Beekeepers read the current bloom windows of blocks they hold or offer colonies for.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const bloomPolicy: PolicyTable<'readReference' | 'editFarmThresholds' | 'editPublishedReference' | 'heldWindows'> = {
-  readReference: ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer', 'admin'],
-  editFarmThresholds: ['farm:owner', 'farm:manager', 'admin'],
-  editPublishedReference: ['admin'],
-  heldWindows: ['apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'],
-};
+// The bloom policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { bloomPolicy } from '../../../../shared/policies/bloom.js';

@@ -1,6 +1,2 @@
-// Every member of a farm or an apiary may have a private calendar feed.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const calendarPolicy = {
-  manage: ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer', 'apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'],
-} as const satisfies PolicyTable;
+// The calendar policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { calendarPolicy } from '../../../../shared/policies/calendar.js';

@@ -1,9 +1,2 @@
-// Who may commit colonies (an apiary's owners and managers) and who answers (a farm's).
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const commitmentsPolicy = {
-  list: ['apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'],
-  offer: ['apiary:owner', 'apiary:manager'],
-  withdraw: ['apiary:owner', 'apiary:manager'],
-  decide: ['farm:owner', 'farm:manager'],
-} as const satisfies PolicyTable;
+// The commitments policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { commitmentsPolicy } from '../../../../shared/policies/commitments.js';

@@ -1,6 +1,2 @@
-// Owners and managers of either side may export their season.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const exportsPolicy = {
-  export: ['farm:owner', 'farm:manager', 'apiary:owner', 'apiary:manager'],
-} as const satisfies PolicyTable;
+// The exports policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { exportsPolicy } from '../../../../shared/policies/exports.js';

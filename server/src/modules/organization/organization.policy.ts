@@ -1,17 +1,2 @@
-// Who may do what with an organization's members and invitations. Every member may see
-// who else belongs to their organization; only owners manage members. The platform admin
-// belongs to no organization and manages none here.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-import type { RoleKey } from '../../../../shared/roles.js';
-
-const everyMember: RoleKey[] = ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer', 'apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'];
-const owners: RoleKey[] = ['farm:owner', 'apiary:owner'];
-
-export const organizationPolicy = {
-  listMembers: everyMember,
-  changeRole: owners,
-  removeMember: owners,
-  listInvitations: owners,
-  invite: owners,
-  revokeInvitation: owners,
-} as const satisfies PolicyTable;
+// The organization policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { organizationPolicy } from '../../../../shared/policies/organization.js';

@@ -1,10 +1,2 @@
-// Who may move money: the grower's owner or manager pays online; the beekeeper's owner or
-// manager records cheques and transfers and refunds online payments.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const paymentsPolicy = {
-  payOnline: ['farm:owner', 'farm:manager'],
-  recordManual: ['apiary:owner', 'apiary:manager'],
-  refund: ['apiary:owner', 'apiary:manager'],
-  export: ['apiary:owner', 'apiary:manager', 'apiary:viewer', 'farm:owner', 'farm:manager', 'farm:viewer'],
-} as const satisfies PolicyTable;
+// The payments policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { paymentsPolicy } from '../../../../shared/policies/payments.js';

@@ -1,7 +1,2 @@
-// Who may see and record a farm's trap counts.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const pestsPolicy = {
-  list: ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer'],
-  record: ['farm:owner', 'farm:manager', 'farm:applicator'],
-} as const satisfies PolicyTable;
+// The pests policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { pestsPolicy } from '../../../../shared/policies/pests.js';

@@ -1,9 +1,2 @@
-// Who may do what with hive requests: growers' owners and managers ask; every member of a
-// farm sees its own requests; every member of an apiary sees requests open to it.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const requestsPolicy = {
-  list: ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer', 'apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'],
-  read: ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer', 'apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'],
-  manage: ['farm:owner', 'farm:manager'],
-} as const satisfies PolicyTable;
+// The requests policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { requestsPolicy } from '../../../../shared/policies/requests.js';

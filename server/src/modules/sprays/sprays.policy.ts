@@ -1,7 +1,2 @@
-// Who may see and plan a farm's sprays.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const spraysPolicy = {
-  list: ['farm:owner', 'farm:manager', 'farm:applicator', 'farm:viewer'],
-  plan: ['farm:owner', 'farm:manager', 'farm:applicator'],
-} as const satisfies PolicyTable;
+// The sprays policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { spraysPolicy } from '../../../../shared/policies/sprays.js';

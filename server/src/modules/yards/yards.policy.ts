@@ -1,7 +1,2 @@
-// Who may see and keep an apiary's yards.
-import type { PolicyTable } from '../../middleware/authenticate.js';
-
-export const yardsPolicy = {
-  list: ['apiary:owner', 'apiary:manager', 'apiary:crew', 'apiary:viewer'],
-  manage: ['apiary:owner', 'apiary:manager'],
-} as const satisfies PolicyTable;
+// The yards policy table lives in shared/policies so the client's useCan() reads the same rules.
+export { yardsPolicy } from '../../../../shared/policies/yards.js';
