@@ -9,7 +9,7 @@ export default defineConfig({
     maxWorkers: 4,
     projects: [
       { test: { name: 'domain', include: ['tests/domain/**/*.test.ts'], environment: 'node' } },
-      { test: { name: 'api', include: ['tests/api/**/*.test.ts', 'tests/realtime/**/*.test.ts'], environment: 'node', testTimeout: 30_000, hookTimeout: 60_000 } },
+      { test: { name: 'api', include: ['tests/api/**/*.test.ts', 'tests/realtime/**/*.test.ts', 'tests/faults/**/*.test.ts'], environment: 'node', testTimeout: 30_000, hookTimeout: 60_000 } },
       { test: { name: 'e2e', include: ['tests/e2e/**/*.test.ts'], environment: 'node', testTimeout: 180_000, hookTimeout: 120_000 } },
     ],
   },

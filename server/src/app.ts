@@ -58,7 +58,7 @@ export async function createApp(config: Config, options: { now?: () => Date } = 
   const now = options.now ?? (() => new Date());
   const sessionStack = [sessionMiddleware, passport.initialize(), passport.session(), absoluteSessionExpiry(config, now)];
   const io = createRealtimeServer(server, sessionStack, realtimePool);
-  const jobs = await createJobQueue(config.databaseUrl, logger, config.jobsEnabled);
+  const jobs = await createJobQueue(config.databaseUrl, logger, config.jobsEnabled, config.jobRetry);
   const mailer = createMailer(config);
   const context: AppContext = { config, sequelize, models, io, jobs, logger, now };
   const csrf = createCsrf(config);

@@ -194,7 +194,19 @@ export interface AdminQueue {
   oldestWaitingAt: string | null;
 }
 
+/** A job that failed or waits for another try, with the error of its last try. */
+export interface AdminFailingJob {
+  queue: string;
+  id: string;
+  state: 'retry' | 'failed';
+  tries: number;
+  retryLimit: number;
+  error: string | null;
+  at: string;
+}
+
 export interface AdminQueueHealth {
   running: boolean;
   queues: AdminQueue[];
+  failing: AdminFailingJob[];
 }

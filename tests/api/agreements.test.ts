@@ -3,14 +3,12 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
 import { buildMarket, requestPayload } from '../support/builders/requests.js';
-import { onPlacementChanged, type PlacementChangeReason } from '../../server/src/modules/placements/placement-events.js';
+import { recheckRanSince } from '../support/recheck-jobs.js';
 
 describe('agreements', () => {
   let t: TestApp;
   let m: Awaited<ReturnType<typeof buildMarket>>;
   let grower: ApiClient, keeper: ApiClient, keeper2: ApiClient, crew: ApiClient, farmViewer: ApiClient;
-  const changes: Array<{ placementId: string; reason: PlacementChangeReason }> = [];
-  const unsubscribe = onPlacementChanged((_ctx, placementId, reason) => { changes.push({ placementId, reason }); });
 
   beforeAll(async () => {
     t = await startTestApp();
@@ -21,7 +19,7 @@ describe('agreements', () => {
     crew = await signedInClient(t.app, m.people.crew.email);
     farmViewer = await signedInClient(t.app, m.people.farmViewer.email);
   });
-  afterAll(async () => { unsubscribe(); await t?.stop(); });
+  afterAll(async () => { await t?.stop(); });
 
   async function draftAgreement(colonies = 40) {
     const r = (await grower.post('/api/requests', requestPayload(m.block.id, {}, m)).expect(201)).body.request;
@@ -54,6 +52,7 @@ describe('agreements', () => {
       expect(first.body.agreement.state).toBe('awaiting-signatures');
       expect((await grower.post(`/api/agreements/${agreementId}/confirm`)).status).toBe(409);
 
+      const confirmedAt = new Date();
       const second = await keeper.post(`/api/agreements/${agreementId}/confirm`);
       expect(second.body.agreement.state).toBe('in-force');
       expect(second.body.agreement.apiaryConfirmation.byName).toBe('Bram Tully');
@@ -63,7 +62,8 @@ describe('agreements', () => {
       // 40 colonies: 36 fill the North lane (planned 36), 4 go to the South gate.
       expect(placements.map((p: { dropSite: { name: string }; coloniesPlanned: number }) => [p.dropSite.name, p.coloniesPlanned])).toEqual([['North lane', 36], ['South gate', 4]]);
       expect(placements.every((p: { state: string; onSite: { from: string } }) => p.state === 'scheduled' && p.onSite.from === draft.expectedOnSite.from)).toBe(true);
-      expect(changes.filter((c) => placements.some((p: { id: string }) => p.id === c.placementId)).map((c) => c.reason)).toEqual(['scheduled', 'scheduled']);
+      // The agreement in force is re-checked against planned sprays.
+      await expect.poll(() => recheckRanSince(t, `agreement:${agreementId}`, confirmedAt), { timeout: 10_000 }).toBe(true);
 
       // The gate code reaches the beekeeper only now.
       expect((await keeper.get(`/api/requests/${requestId}`)).body.request.dropSites[0].gateCode).toBe('4471');
@@ -102,6 +102,7 @@ describe('agreements', () => {
       expect((await keeper.post(`/api/agreements/${agreementId}/amendments/${amendment.id}/confirm`)).status).toBe(403);
       expect((await crew.post(`/api/agreements/${agreementId}/amendments/${amendment.id}/confirm`)).status).toBe(403);
 
+      const amendedAt = new Date();
       const confirmed = await grower.post(`/api/agreements/${agreementId}/amendments/${amendment.id}/confirm`);
       expect(confirmed.status).toBe(200);
       const after = confirmed.body.agreement;
@@ -112,7 +113,7 @@ describe('agreements', () => {
       expect(after.amendments[0]).toMatchObject({ state: 'accepted', versionAfter: before.version + 1, decidedByName: 'Gale Orrin', previous: { pricePerColonyCents: 7000 } });
       const placements = (await grower.get(`/api/placements?agreementId=${agreementId}`)).body.placements;
       expect(placements.every((p: { onSite: { from: string; to: string } }) => p.onSite.from === '2027-04-11T07:00:00.000Z' && p.onSite.to === '2027-05-03T07:00:00.000Z')).toBe(true);
-      expect(changes.filter((c) => c.reason === 'agreement-amended').map((c) => c.placementId)).toEqual(expect.arrayContaining(placements.map((p: { id: string }) => p.id)));
+      await expect.poll(() => recheckRanSince(t, `agreement:${agreementId}`, amendedAt), { timeout: 10_000 }).toBe(true);
       expect((await grower.post(`/api/agreements/${agreementId}/amendments/${amendment.id}/reject`)).status).toBe(409);
     });
 

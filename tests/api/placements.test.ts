@@ -6,7 +6,7 @@ import { startTestApp, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
 import { defaultTestPassword } from '../support/builders/accounts.js';
 import { buildMarket, requestPayload } from '../support/builders/requests.js';
-import { onPlacementChanged, type PlacementChangeReason } from '../../server/src/modules/placements/placement-events.js';
+import { recheckRanSince } from '../support/recheck-jobs.js';
 
 /** A socket signed in as the user, as the browser's is (session cookie). */
 async function socketFor(t: TestApp, email: string): Promise<Socket> {
@@ -30,8 +30,6 @@ describe('placements', () => {
   let m: Awaited<ReturnType<typeof buildMarket>>;
   let grower: ApiClient, keeper: ApiClient, crew: ApiClient, apiaryViewer: ApiClient, keeper2: ApiClient;
   let growerSocket: Socket;
-  const changes: Array<{ placementId: string; reason: PlacementChangeReason }> = [];
-  const unsubscribe = onPlacementChanged((_ctx, placementId, reason) => { changes.push({ placementId, reason }); });
 
   beforeAll(async () => {
     t = await startTestApp();
@@ -43,7 +41,7 @@ describe('placements', () => {
     keeper2 = await signedInClient(t.app, m.people.keeper2.email);
     growerSocket = await socketFor(t, m.people.grower.email);
   });
-  afterAll(async () => { unsubscribe(); growerSocket?.disconnect(); await t?.stop(); });
+  afterAll(async () => { growerSocket?.disconnect(); await t?.stop(); });
 
   /** An agreement in force for `colonies` on the first drop site; returns its first placement. */
   async function scheduledPlacement(colonies = 30) {
@@ -60,6 +58,7 @@ describe('placements', () => {
     const { placement } = await scheduledPlacement(30);
     const heard = new Promise<{ placementId: string; state: string; step: string }>((resolve) => growerSocket.once('placement:updated', resolve));
     const deliveredAt = new Date(Date.now() - 60_000).toISOString();
+    const stepAt = new Date();
     const res = await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 30, deliveredAt, location: { type: 'Point', coordinates: [m.lon + 0.0004, m.lat] } });
     expect(res.status).toBe(200);
     const p = res.body.placement;
@@ -70,7 +69,8 @@ describe('placements', () => {
     // On site from delivery, open-ended until pickup (what the conflict search reads).
     expect(p.onSite).toEqual({ from: deliveredAt, to: null });
     expect(await heard).toMatchObject({ placementId: placement.id, state: 'delivered', step: 'delivered' });
-    expect(changes).toContainEqual({ placementId: placement.id, reason: 'delivered' });
+    // The spray conflict check re-runs for the placement's agreement.
+    await expect.poll(() => recheckRanSince(t, `agreement:${placement.agreementId}`, stepAt), { timeout: 10_000 }).toBe(true);
     await expect.poll(() => t.sink.messages.some((msg) => msg.to.includes(m.people.grower.email) && /North lane .*delivered/.test(msg.subject)), { timeout: 10_000 }).toBe(true);
     const again = await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 30 });
     expect(again.status).toBe(409);
@@ -152,12 +152,13 @@ describe('placements', () => {
     const early = await crew.post(`/api/placements/${placement.id}/pickup`, { coloniesPickedUp: 20, pickedUpAt: new Date(Date.parse(deliveredAt) - 1000).toISOString() });
     expect(early.status).toBe(400);
     const pickedUpAt = new Date(Date.now() - 60_000).toISOString();
+    const pickupAt = new Date();
     const res = await crew.post(`/api/placements/${placement.id}/pickup`, { coloniesPickedUp: 19, pickedUpAt });
     expect(res.status).toBe(200);
     expect(res.body.placement.state).toBe('picked-up');
     expect(res.body.placement.onSite).toEqual({ from: deliveredAt, to: pickedUpAt });
     expect((await grower.get(`/api/agreements/${agreementId}`)).body.agreement.state).toBe('completed');
-    expect(changes).toContainEqual({ placementId: placement.id, reason: 'picked-up' });
+    await expect.poll(() => recheckRanSince(t, `agreement:${agreementId}`, pickupAt), { timeout: 10_000 }).toBe(true);
 
     // The grower disputes the count, with a note; crew may not dispute.
     expect((await crew.post(`/api/placements/${placement.id}/dispute`, { step: 'pickup', note: 'x' })).status).toBe(403);

@@ -1,7 +1,7 @@
 // Spray plans and the conflict check over HTTP against the real app and database.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes } from 'sequelize';
-import { startTestApp, type TestApp } from '../support/test-app.js';
+import { startTestApp, eventually, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildBlock, buildSignedSeason, buildDropSite, buildRequest, buildCommitment, buildAgreement, buildPlacement } from '../support/builders/season.js';
@@ -192,23 +192,25 @@ describe('spray plans API', () => {
       expect(await stateOf()).toBe('raised');
       const { placementChanged } = await import('../../server/src/modules/placements/placement-events.js');
       await t.context.sequelize.query(`UPDATE placements SET state = 'picked-up', picked_up_at = now(), on_site = tstzrange(lower(on_site), now(), '[)') WHERE id = :id`, { replacements: { id: placement.id } });
-      await placementChanged(t.context, placement.id, 'picked-up');
-      expect(await stateOf()).toBe('resolved');
+      await t.context.sequelize.transaction((tx) => placementChanged(t.context, tx, placement.id, 'picked-up'));
+      expect(await eventually(async () => (await stateOf()) === 'resolved')).toBe(true);
       await t.context.sequelize.query(`UPDATE placements SET state = 'delivered', picked_up_at = NULL, on_site = tstzrange(lower(on_site), NULL, '[)') WHERE id = :id`, { replacements: { id: placement.id } });
-      await placementChanged(t.context, placement.id, 'delivered');
-      expect(await stateOf()).toBe('raised');
+      await t.context.sequelize.transaction((tx) => placementChanged(t.context, tx, placement.id, 'delivered'));
+      expect(await eventually(async () => (await stateOf()) === 'raised')).toBe(true);
       const history = (await keeperApiaryHistory(created.spray.id, keeperApiary.id)).map((e) => e.action);
       expect(history).toEqual(['raised', 'resolved', 'reopened']);
     });
 
     it('re-grades when a bloom window is entered for the sprayed block', async () => {
-      const { bloomWindowChanged } = await import('../../server/src/modules/conflicts/conflict-triggers.js');
+      const { bloomWindowChanged } = await import('../../server/src/modules/alerts/conflict-rechecks.js');
       const { buildBloomWindow } = await import('../support/builders/season.js');
       const lone = await buildBlock({ farm, lon: -118.5, lat: 44.9, name: 'Lone Pine' });
       const created = (await applicator.post('/api/sprays', sprayInput({ blockIds: [lone.id], startsAt: nightStart, ld50UgPerBee: 1, rt25Hours: 3 })).expect(201)).body;
       expect(created.check.conflicts).toEqual([]);
       await buildBloomWindow({ block: lone, bloomStart: isoDay(now), petalFall: isoDay(new Date(now.getTime() + 10 * DAY)) });
-      await bloomWindowChanged(t.context, lone.id);
+      await t.context.sequelize.transaction((tx) => bloomWindowChanged(t.context, tx, lone.id));
+      // The re-check job runs after the commit.
+      await eventually(async () => (await grower.get(`/api/sprays/${created.spray.id}`).expect(200)).body.spray.openAlerts === 1);
       const after = (await grower.get(`/api/sprays/${created.spray.id}`).expect(200)).body;
       expect(after.check.conflicts.map((c: { grade: string }) => c.grade)).toEqual(['bloom-spray']);
       expect(after.spray.openAlerts).toBe(1);
@@ -227,7 +229,7 @@ describe('spray plans API', () => {
       }
       const bad = await applicator.post('/api/pests/trap-counts', { blockId: season.block.id, pestModelId: 'codling-moth', checkedOn: '2027-05-10', moths: -2 }).expect(400);
       expect(bad.body.error.fields).toHaveProperty('moths');
-      const timing = (await grower.get(`/api/pests/timing?blockId=${season.block.id}&pestModelId=codling-moth`).expect(200)).body.timing;
+      const timing = (await grower.get(`/api/pests/timing?blockId=${season.block.id}&pestModelId=codling-moth&season=2027`).expect(200)).body.timing;
       expect(timing).toMatchObject({ biofix: '2027-05-04', hasWeather: false });
       expect(timing.stages[0]).toMatchObject({ name: 'First egg hatch', degreeDaysF: 250, reachedOn: null });
       const models = (await grower.get('/api/pests/models').expect(200)).body.models;

@@ -1,5 +1,6 @@
 // The signed-in organization's conflict alerts: loaded once, kept current from the socket,
 // and, after a reconnect, topped up with everything changed since the last revision seen.
+// Alerts are delivered at least once: a revision already held is dropped (by id and revision).
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import { alertsApi, onAlertEvents } from '@/api/alerts';
@@ -15,13 +16,15 @@ export const useAlertsStore = defineStore('alerts', () => {
   const alerts = computed(() => [...byId.value.values()].sort((a, b) => b.revision - a.revision));
   const unseen = computed(() => alerts.value.filter((a) => a.state !== 'resolved' && !a.seenByMe).length);
 
-  function upsert(alert: AlertDto) {
+  /** Keeps the newest revision of each alert; false when it was already held (a replayed delivery). */
+  function upsert(alert: AlertDto): boolean {
     const current = byId.value.get(alert.id);
-    if (current && current.revision > alert.revision) return;
+    if (current && current.revision >= alert.revision) return false;
     const next = new Map(byId.value);
     next.set(alert.id, alert);
     byId.value = next;
     latestRevision.value = Math.max(latestRevision.value, alert.revision);
+    return true;
   }
 
   async function catchUp() {
@@ -34,8 +37,7 @@ export const useAlertsStore = defineStore('alerts', () => {
     if (stop) return;
     stop = onAlertEvents({
       raised: (alert) => {
-        upsert(alert);
-        for (const listener of arrivedListeners) listener(alert);
+        if (upsert(alert)) for (const listener of arrivedListeners) listener(alert);
       },
       updated: upsert,
       reconnected: () => void catchUp(),

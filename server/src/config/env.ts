@@ -34,6 +34,11 @@ const envSchema = z.object({
   LOGIN_RATE_LIMIT_PER_ADDRESS: z.coerce.number().int().min(1).default(50),
   JOBS_ENABLED: bool.default(true),
   REALTIME_ADAPTER: z.enum(['postgres', 'memory']).default('postgres'),
+  JOB_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3_600).default(2),
+  JOB_RETRY_BACKOFF: bool.default(true),
+  JOB_RETRY_LIMIT: z.coerce.number().int().min(0).max(100).default(12),
+  /** Test-only fault: the process kills itself right after a spray's alerts are committed. */
+  FAULT_EXIT_AFTER_ALERT_COMMIT: bool.default(false),
   /** Server processes behind Node's cluster module (the usual name for it on hosting platforms). */
   WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(1),
 });
@@ -62,6 +67,10 @@ export interface Config {
   loginRateLimit: { perAccount: number; perAddress: number };
   jobsEnabled: boolean;
   realtimeAdapter: 'postgres' | 'memory';
+  /** Retries of failed jobs: delay, doubling with jitter when backoff is on, number of tries. */
+  jobRetry: { delaySeconds: number; backoff: boolean; limit: number };
+  /** Faults the fault tests inject; honoured only when NODE_ENV=test. */
+  faults: { exitAfterAlertCommit: boolean };
   /** How many server processes index.ts runs (1: no cluster). */
   webConcurrency: number;
 }
@@ -100,6 +109,8 @@ export function loadConfig(source: Record<string, string | undefined> = process.
     loginRateLimit: { perAccount: e.LOGIN_RATE_LIMIT_PER_ACCOUNT, perAddress: e.LOGIN_RATE_LIMIT_PER_ADDRESS },
     jobsEnabled: e.JOBS_ENABLED,
     realtimeAdapter: e.REALTIME_ADAPTER,
+    jobRetry: { delaySeconds: e.JOB_RETRY_DELAY_SECONDS, backoff: e.JOB_RETRY_BACKOFF, limit: e.JOB_RETRY_LIMIT },
+    faults: { exitAfterAlertCommit: e.NODE_ENV === 'test' && e.FAULT_EXIT_AFTER_ALERT_COMMIT },
     webConcurrency: e.WEB_CONCURRENCY,
   };
   return { ...config, ...overrides };

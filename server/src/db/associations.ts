@@ -34,4 +34,24 @@ export function associateModels(m: Models) {
   m.PestTrapCount.belongsTo(m.PestModel, { foreignKey: 'pestModelId', as: 'pestModel' });
   m.PestModel.hasMany(m.PestTrapCount, { foreignKey: 'pestModelId', as: 'trapCounts' });
   m.PestTrapCount.belongsTo(m.User, { foreignKey: 'recordedBy', as: 'recorder' });
+
+  // sprays and conflict alerts
+  m.SprayPlan.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
+  m.SprayPlan.belongsTo(m.User, { foreignKey: 'createdBy', as: 'creator' });
+  m.SprayPlan.hasMany(m.SprayPlanBlock, { foreignKey: 'sprayPlanId', as: 'blockLinks' });
+  m.SprayPlan.belongsToMany(m.Block, { through: m.SprayPlanBlock, foreignKey: 'sprayPlanId', otherKey: 'blockId', as: 'blocks' });
+  m.SprayPlanBlock.belongsTo(m.SprayPlan, { foreignKey: 'sprayPlanId', as: 'spray' });
+  m.SprayPlanBlock.belongsTo(m.Block, { foreignKey: 'blockId', as: 'block' });
+  m.SprayPlan.hasMany(m.Alert, { foreignKey: 'sprayPlanId', as: 'alerts' });
+  m.Alert.belongsTo(m.SprayPlan, { foreignKey: 'sprayPlanId', as: 'spray' });
+  m.Alert.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
+  m.Alert.belongsTo(m.Organization, { foreignKey: 'apiaryId', as: 'apiary' });
+  m.Alert.hasMany(m.AlertEvent, { foreignKey: 'alertId', as: 'history' });
+  m.AlertEvent.belongsTo(m.Alert, { foreignKey: 'alertId', as: 'alert' });
+  m.AlertEvent.belongsTo(m.User, { foreignKey: 'actorId', as: 'actor' });
+  m.AlertEvent.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
+  m.Alert.hasMany(m.AlertView, { foreignKey: 'alertId', as: 'views' });
+  m.AlertView.belongsTo(m.Alert, { foreignKey: 'alertId', as: 'alert' });
+  m.AlertView.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
+  m.AlertView.belongsTo(m.User, { foreignKey: 'seenBy', as: 'seer' });
 }

@@ -3,6 +3,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { AppError } from '../errors/create-error.js';
+import { databaseRetryAfterSeconds, databaseUnavailable, isDatabaseUnavailable } from '../errors/database-unavailable.js';
 import { fieldErrorsOf } from './validate.js';
 import type { ErrorBody } from '../../../shared/errors.js';
 
@@ -20,6 +21,7 @@ function toAppError(err: unknown): AppError | null {
     return new AppError('validation_failed', `Upload refused: ${e.message}.`, e.code === 'LIMIT_FILE_SIZE' ? 413 : 400, { [field]: e.message });
   }
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) return new AppError('bad_request', 'The request could not be read.', e.status);
+  if (isDatabaseUnavailable(err)) return databaseUnavailable();
   return null;
 }
 
@@ -33,5 +35,6 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
       : { code: 'internal', message: 'Something went wrong on our side. Please try again.' },
   };
   if (res.headersSent) return;
+  if (status === 503) res.set('Retry-After', String(databaseRetryAfterSeconds));
   res.status(status).json(body);
 };

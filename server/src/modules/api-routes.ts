@@ -24,7 +24,8 @@ import { weatherRoutes } from './weather/weather.routes.js';
 import { blockBloomRoutes, bloomRoutes } from './bloom/bloom.routes.js';
 import { metaRoutes } from './meta/meta.routes.js';
 import { startBloomDigestWorker } from './bloom/bloom-digest.job.js';
-import { subscribeConflictTriggers } from './conflicts/conflict-triggers.js';
+import { startConflictRecheckWorker } from './alerts/conflict-rechecks.js';
+import { startAlertPublishWorker } from './alerts/alert-publish.js';
 import { invoicesRoutes } from './invoices/invoices.routes.js';
 import { paymentsRoutes, paymentsWebhookRoutes } from './payments/payments.routes.js';
 import { startOverdueReminders } from './invoices/overdue-reminders.job.js';
@@ -54,7 +55,6 @@ export function apiRoutes(ctx: AppContext, passport: Passport, csrf: Csrf): Rout
   router.use('/pests', pestsRoutes(ctx));
   router.use('/invoices', invoicesRoutes(ctx));
   router.use('/payments', paymentsRoutes(ctx));
-  subscribeConflictTriggers();
   return router;
 }
 
@@ -73,4 +73,6 @@ export async function startFeatureWorkers(ctx: AppContext): Promise<void> {
   await startBloomDigestWorker(ctx);
   await startOverdueReminders(ctx);
   await startInvoiceEmailWorker(ctx);
+  await startConflictRecheckWorker(ctx);
+  await startAlertPublishWorker(ctx);
 }

@@ -1,5 +1,7 @@
 // One step in an alert's history: raised, updated, seen, answered, resolved, reopened.
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Organization } from './organization.model.js';
+import type { User } from './user.model.js';
 import type { AlertAction } from '../../../../shared/schemas/alerts.js';
 
 export class AlertEvent extends Model<InferAttributes<AlertEvent>, InferCreationAttributes<AlertEvent>> {
@@ -12,6 +14,8 @@ export class AlertEvent extends Model<InferAttributes<AlertEvent>, InferCreation
   declare note: string | null;
   declare detail: CreationOptional<Record<string, unknown>>;
   declare createdAt: CreationOptional<Date>;
+  declare actor?: NonAttribute<User | null>;
+  declare organization?: NonAttribute<Organization | null>;
 }
 
 export function defineAlertEvent(sequelize: Sequelize): typeof AlertEvent {

@@ -1,5 +1,7 @@
 // A conflict alert: one spray plan against one affected apiary business (or the bloom alone).
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Organization } from './organization.model.js';
+import type { SprayPlan } from './spray-plan.model.js';
 import type { AlertState, AlertFinding } from '../../../../shared/schemas/alerts.js';
 import type { ConflictGrade } from '../../../../shared/domain/conflict-grading.js';
 
@@ -18,6 +20,9 @@ export class Alert extends Model<InferAttributes<Alert>, InferCreationAttributes
   declare resolvedAt: Date | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare farm?: NonAttribute<Organization>;
+  declare apiary?: NonAttribute<Organization | null>;
+  declare spray?: NonAttribute<SprayPlan>;
 }
 
 export function defineAlert(sequelize: Sequelize): typeof Alert {

@@ -1,9 +1,11 @@
 // A block a spray plan covers.
-import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Block } from './block.model.js';
 
 export class SprayPlanBlock extends Model<InferAttributes<SprayPlanBlock>, InferCreationAttributes<SprayPlanBlock>> {
   declare sprayPlanId: string;
   declare blockId: string;
+  declare block?: NonAttribute<Block>;
 }
 
 export function defineSprayPlanBlock(sequelize: Sequelize): typeof SprayPlanBlock {

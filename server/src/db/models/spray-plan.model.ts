@@ -1,5 +1,8 @@
 // A planned bee-relevant spray on one or more blocks of a farm.
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { Organization } from './organization.model.js';
+import type { Block } from './block.model.js';
+import type { SprayPlanBlock } from './spray-plan-block.model.js';
 import type { SprayState } from '../../../../shared/schemas/sprays.js';
 
 type Range = [{ value: Date; inclusive: boolean }, { value: Date; inclusive: boolean }];
@@ -23,6 +26,9 @@ export class SprayPlan extends Model<InferAttributes<SprayPlan>, InferCreationAt
   declare createdBy: string | null;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  declare farm?: NonAttribute<Organization>;
+  declare blockLinks?: NonAttribute<SprayPlanBlock[]>;
+  declare blocks?: NonAttribute<Block[]>;
 }
 
 export function defineSprayPlan(sequelize: Sequelize): typeof SprayPlan {

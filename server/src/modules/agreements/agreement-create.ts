@@ -6,6 +6,7 @@ import { agreementClauses } from '../../../../shared/domain/agreement-clauses.js
 import { selectOne } from '../requests/sql.js';
 import { recordRequestEvent } from '../requests/request-events.js';
 import { publish } from '../requests/notify.js';
+import { agreementChanged } from '../alerts/conflict-rechecks.js';
 
 const defaultRemovalNoticeHours = 48;
 
@@ -46,6 +47,7 @@ export async function createAgreementForCommitment(ctx: AppContext, commitmentId
     t,
   ))!;
   await recordRequestEvent(ctx, t, terms.request_id, actorId, 'agreement-drafted', { agreementId: row.id, commitmentId });
+  await agreementChanged(ctx, t, row.id); // expected colonies count in the spray conflict check
   return row.id;
 }
 

@@ -12,7 +12,7 @@ import { recordRequestEvent } from '../requests/request-events.js';
 import { mailOrganizations } from '../requests/notify.js';
 import { announceAgreement } from './agreement-create.js';
 import { createPlacementsForAgreement } from '../placements/placement-create.js';
-import { placementChanged } from '../placements/placement-events.js';
+import { agreementChanged } from '../alerts/conflict-rechecks.js';
 
 type AgreementRow = {
   id: string; request_id: string; request_title: string; commitment_id: string; farm_id: string; farm_name: string; apiary_id: string; apiary_name: string;
@@ -84,10 +84,6 @@ export function createAgreementsService(ctx: AppContext) {
     return row;
   }
 
-  async function placementIds(agreementId: string) {
-    return (await selectRows<{ id: string }>(ctx, 'SELECT id FROM placements WHERE agreement_id = :agreementId', { agreementId })).map((p) => p.id);
-  }
-
   const service = {
     async list(user: AuthUser): Promise<AgreementDto[]> {
       const rows = await selectRows<AgreementRow>(ctx, `${selectAgreements} WHERE a.farm_id = :org OR a.apiary_id = :org ORDER BY lower(a.expected_on_site), a.created_at, a.id`, { org: user.organizationId });
@@ -115,6 +111,7 @@ export function createAgreementsService(ctx: AppContext) {
           await execute(ctx, "UPDATE agreements SET state = 'in-force', updated_at = now() WHERE id = :id", { id }, t);
           created = await createPlacementsForAgreement(ctx, id, t);
           await recordRequestEvent(ctx, t, a.request_id, user.id, 'agreement-in-force', { agreementId: id, placements: created.length });
+          await agreementChanged(ctx, t, id); // the spray conflict check grades agreements in force
         }
         return { a, created, bothConfirmed };
       });
@@ -126,7 +123,6 @@ export function createAgreementsService(ctx: AppContext) {
           ? `${user.organizationName} confirmed the pollination agreement; it is now fixed and the drop-offs are scheduled.`
           : `${user.organizationName} confirmed the pollination agreement. Please review and confirm it too.`,
       });
-      for (const placementId of result.created) await placementChanged(ctx, placementId, 'scheduled');
       return service.get(user, id);
     },
 
@@ -210,11 +206,11 @@ export function createAgreementsService(ctx: AppContext) {
           t,
         );
         await recordRequestEvent(ctx, t, a.request_id, user.id, `amendment-${state}`, { agreementId: id, amendmentId });
+        if (state === 'accepted') await agreementChanged(ctx, t, id);
         return { a, state };
       });
       await announceAgreement(ctx, id);
       await mailOrganizations(ctx, [side === 'farm' ? outcome.a.apiary_id : outcome.a.farm_id], { subject: `Amendment ${outcome.state}`, text: `${user.organizationName} ${outcome.state === 'accepted' ? 'confirmed' : outcome.state} the amendment to your pollination agreement.` });
-      if (outcome.state === 'accepted') for (const placementId of await placementIds(id)) await placementChanged(ctx, placementId, 'agreement-amended');
       return service.get(user, id);
     },
   };

@@ -1,16 +1,11 @@
 // Loads alerts as their DTOs for one viewing organization (which decides seenByMe and
-// what it may see: a farm its own alerts, an apiary business the ones naming it).
-import { QueryTypes, type Sequelize } from 'sequelize';
+// what it may see: a farm its own alerts, an apiary business the ones naming it), through
+// the models, on the caller's transaction when there is one.
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import type { AppContext } from '../../context.js';
+import type { Alert } from '../../db/models/alert.model.js';
 import { sprayCautions } from '../../../../shared/domain/conflict-grading.js';
 import type { AlertDto, AlertEventDto } from '../../../../shared/schemas/alerts.js';
-
-interface AlertRow {
-  id: string; revision: string; state: AlertDto['state']; grade: AlertDto['grade']; grades: AlertDto['grades']; reasons: string[];
-  findings: AlertDto['findings']; farm_id: string; farm_name: string; apiary_id: string | null; apiary_name: string | null;
-  spray_id: string; spray_state: AlertDto['spray']['state']; product_name: string; epa_reg_no: string | null; starts_at: Date; ends_at: Date;
-  block_names: string[]; seen_by_me: boolean; raised_at: Date; resolved_at: Date | null; updated_at: Date;
-  history: Array<Omit<AlertEventDto, 'at'> & { at: string }>;
-}
 
 export interface AlertFilter {
   ids?: string[];
@@ -19,60 +14,79 @@ export interface AlertFilter {
   sprayId?: string;
 }
 
-const iso = (d: Date | string) => new Date(d).toISOString();
+const iso = (d: Date) => d.toISOString();
 
-export async function loadAlertDtos(sequelize: Sequelize, viewerOrgId: string, filter: AlertFilter = {}): Promise<AlertDto[]> {
-  const where = ['(a.farm_id = :viewer OR a.apiary_id = :viewer)'];
-  if (filter.ids) where.push('a.id = ANY(CAST(:ids AS uuid[]))');
-  if (filter.sinceRevision !== undefined) where.push('a.revision > :since');
-  if (filter.openOnly) where.push("a.state <> 'resolved'");
-  if (filter.sprayId) where.push('a.spray_plan_id = :sprayId');
-  const rows = await sequelize.query<AlertRow>(
-    `SELECT a.id, a.revision, a.state, a.grade, a.grades, a.reasons, a.findings, a.farm_id, f.name AS farm_name, a.apiary_id, ap.name AS apiary_name,
-       s.id AS spray_id, s.state AS spray_state, s.product_name, s.epa_reg_no, lower(s.planned_window) AS starts_at, upper(s.planned_window) AS ends_at,
-       ARRAY(SELECT b.name FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id ORDER BY b.name) AS block_names,
-       EXISTS (SELECT 1 FROM alert_views v WHERE v.alert_id = a.id AND v.organization_id = :viewer) AS seen_by_me,
-       a.raised_at, a.resolved_at, a.updated_at,
-       (SELECT coalesce(json_agg(json_build_object('id', e.id::text, 'action', e.action, 'actorName', u.name, 'organizationName', o.name,
-           'response', e.response, 'note', e.note, 'at', e.created_at) ORDER BY e.id), '[]')
-        FROM alert_events e LEFT JOIN users u ON u.id = e.actor_id LEFT JOIN organizations o ON o.id = e.organization_id
-        WHERE e.alert_id = a.id) AS history
-     FROM alerts a
-     JOIN spray_plans s ON s.id = a.spray_plan_id
-     JOIN organizations f ON f.id = a.farm_id
-     LEFT JOIN organizations ap ON ap.id = a.apiary_id
-     WHERE ${where.join(' AND ')}
-     ORDER BY a.revision DESC
-     LIMIT 500`,
-    {
-      replacements: { viewer: viewerOrgId, ids: filter.ids ? `{${filter.ids.join(',')}}` : null, since: filter.sinceRevision ?? 0, sprayId: filter.sprayId ?? null },
-      type: QueryTypes.SELECT,
-    },
-  );
-  return rows.map((r) => ({
-    id: r.id,
-    revision: Number(r.revision),
-    state: r.state,
-    grade: r.grade,
-    grades: r.grades,
-    reasons: r.reasons,
-    cautions: [...sprayCautions],
-    farm: { id: r.farm_id, name: r.farm_name },
-    apiary: r.apiary_id ? { id: r.apiary_id, name: r.apiary_name! } : null,
-    spray: { id: r.spray_id, state: r.spray_state, productName: r.product_name, epaRegNo: r.epa_reg_no, startsAt: iso(r.starts_at), endsAt: iso(r.ends_at), blockNames: r.block_names },
-    findings: r.findings,
-    seenByMe: r.seen_by_me,
-    raisedAt: iso(r.raised_at),
-    resolvedAt: r.resolved_at ? iso(r.resolved_at) : null,
-    updatedAt: iso(r.updated_at),
-    history: r.history.map((e) => ({ ...e, at: iso(e.at) })),
-  }));
+export async function loadAlertDtos(ctx: AppContext, viewerOrgId: string, filter: AlertFilter = {}, transaction?: Transaction): Promise<AlertDto[]> {
+  const { Alert, AlertEvent, AlertView, SprayPlanBlock } = ctx.models;
+  const where: WhereOptions<Alert>[] = [{ [Op.or]: [{ farmId: viewerOrgId }, { apiaryId: viewerOrgId }] }];
+  if (filter.ids) where.push({ id: filter.ids });
+  if (filter.sinceRevision !== undefined) where.push({ revision: { [Op.gt]: String(filter.sinceRevision) } });
+  if (filter.openOnly) where.push({ state: { [Op.ne]: 'resolved' } });
+  if (filter.sprayId) where.push({ sprayPlanId: filter.sprayId });
+  const alerts = await Alert.findAll({
+    where: { [Op.and]: where },
+    include: [
+      { association: 'spray', attributes: ['id', 'state', 'productName', 'epaRegNo', 'plannedWindow'] },
+      { association: 'farm', attributes: ['id', 'name', 'timeZone'] },
+      { association: 'apiary', attributes: ['id', 'name'] },
+    ],
+    order: [['revision', 'DESC']],
+    limit: 500,
+    transaction,
+  });
+  if (!alerts.length) return [];
+  const alertIds = alerts.map((a) => a.id);
+  const events = await AlertEvent.findAll({
+    where: { alertId: alertIds },
+    include: [{ association: 'actor', attributes: ['name'] }, { association: 'organization', attributes: ['name'] }],
+    order: [['id', 'ASC']],
+    transaction,
+  });
+  const seen = new Set((await AlertView.findAll({ where: { alertId: alertIds, organizationId: viewerOrgId }, attributes: ['alertId'], transaction })).map((v) => v.alertId));
+  const links = await SprayPlanBlock.findAll({
+    where: { sprayPlanId: [...new Set(alerts.map((a) => a.sprayPlanId))] },
+    include: [{ association: 'block', attributes: ['name'] }],
+    transaction,
+  });
+  const blockNames = new Map<string, string[]>();
+  for (const l of links) blockNames.set(l.sprayPlanId, [...(blockNames.get(l.sprayPlanId) ?? []), l.block!.name]);
+  const history = new Map<string, AlertEventDto[]>();
+  for (const e of events) {
+    history.set(e.alertId, [...(history.get(e.alertId) ?? []), {
+      id: String(e.id), action: e.action, actorName: e.actor?.name ?? null, organizationName: e.organization?.name ?? null,
+      response: e.response as AlertEventDto['response'], note: e.note, at: iso(e.createdAt),
+    }]);
+  }
+
+  return alerts.map((a) => {
+    const spray = a.spray!;
+    return {
+      id: a.id,
+      revision: Number(a.revision),
+      state: a.state,
+      grade: a.grade,
+      grades: a.grades,
+      reasons: a.reasons,
+      cautions: [...sprayCautions],
+      farm: { id: a.farm!.id, name: a.farm!.name, timeZone: a.farm!.timeZone },
+      apiary: a.apiary ? { id: a.apiary.id, name: a.apiary.name } : null,
+      spray: {
+        id: spray.id, state: spray.state, productName: spray.productName, epaRegNo: spray.epaRegNo,
+        startsAt: iso(spray.plannedWindow[0].value), endsAt: iso(spray.plannedWindow[1].value),
+        blockNames: (blockNames.get(spray.id) ?? []).sort((x, y) => (x < y ? -1 : x > y ? 1 : 0)),
+      },
+      findings: a.findings,
+      seenByMe: seen.has(a.id),
+      raisedAt: iso(a.raisedAt),
+      resolvedAt: a.resolvedAt ? iso(a.resolvedAt) : null,
+      updatedAt: iso(a.updatedAt),
+      history: history.get(a.id) ?? [],
+    };
+  });
 }
 
-/** Sends an alert to each organization it concerns, as that organization sees it. */
-export async function organizationsOf(sequelize: Sequelize, alertId: string): Promise<string[]> {
-  const [row] = await sequelize.query<{ farm_id: string; apiary_id: string | null }>('SELECT farm_id, apiary_id FROM alerts WHERE id = :alertId', {
-    replacements: { alertId }, type: QueryTypes.SELECT,
-  });
-  return row ? [row.farm_id, ...(row.apiary_id ? [row.apiary_id] : [])] : [];
+/** The organizations an alert concerns: its farm, and the apiary business it names. */
+export async function organizationsOf(ctx: AppContext, alertId: string, transaction?: Transaction): Promise<string[]> {
+  const alert = await ctx.models.Alert.findByPk(alertId, { attributes: ['farmId', 'apiaryId'], transaction });
+  return alert ? [alert.farmId, ...(alert.apiaryId ? [alert.apiaryId] : [])] : [];
 }

@@ -1,12 +1,14 @@
 // Reading and answering conflict alerts. A farm sees its own alerts, an apiary business
-// the ones that name it; anything else is 404. Seeing and answering are kept in the history.
-import { QueryTypes } from 'sequelize';
+// the ones that name it; anything else is 404. Seeing and answering are kept in the history,
+// and their publication job is written in the same transaction (alert-outbox.ts).
+import type { Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
 import { badRequest, notFound, wrongState } from '../../errors/http-errors.js';
 import { apiaryResponses, farmResponses, type AlertAnswer, type AlertDto, type AlertListDto, type AlertListQuery } from '../../../../shared/schemas/alerts.js';
 import { loadAlertDtos } from './alert-dtos.js';
-import { publishAlert } from './alert-publish.js';
+import { queueAlertPublication } from './alert-outbox.js';
+import { alertCounts } from './alerts.queries.js';
 
 function orgOf(user: AuthUser): string {
   if (!user.organizationId) throw notFound('That alert');
@@ -14,10 +16,10 @@ function orgOf(user: AuthUser): string {
 }
 
 export function createAlertsService(ctx: AppContext) {
-  const seq = ctx.sequelize;
+  const { Alert, AlertEvent, AlertView } = ctx.models;
 
-  async function load(user: AuthUser, id: string): Promise<AlertDto> {
-    const [dto] = await loadAlertDtos(seq, orgOf(user), { ids: [id] });
+  async function load(user: AuthUser, id: string, transaction?: Transaction): Promise<AlertDto> {
+    const [dto] = await loadAlertDtos(ctx, orgOf(user), { ids: [id] }, transaction);
     if (!dto) throw notFound('That alert');
     return dto;
   }
@@ -25,66 +27,55 @@ export function createAlertsService(ctx: AppContext) {
   /** The side that has to act on an alert first: the apiary business, or the farm for bloom alone. */
   const isReceivingSide = (user: AuthUser, alert: AlertDto) => (alert.apiary ? alert.apiary.id : alert.farm.id) === user.organizationId;
 
-  async function markSeen(user: AuthUser, alert: AlertDto, transaction: import('sequelize').Transaction) {
-    const now = ctx.now().toISOString();
-    const inserted = await seq.query<{ alert_id: string }>(
-      `INSERT INTO alert_views (alert_id, organization_id, seen_by, seen_at) VALUES (:alertId, :orgId, :userId, :now)
-       ON CONFLICT DO NOTHING RETURNING alert_id`,
-      { replacements: { alertId: alert.id, orgId: user.organizationId, userId: user.id, now }, type: QueryTypes.SELECT, transaction },
-    );
-    if (!inserted.length) return false;
-    await seq.query(
-      `INSERT INTO alert_events (alert_id, action, actor_id, organization_id, created_at) VALUES (:alertId, 'seen', :userId, :orgId, :now)`,
-      { replacements: { alertId: alert.id, orgId: user.organizationId, userId: user.id, now }, transaction },
-    );
-    const nextState = alert.state === 'raised' && isReceivingSide(user, alert) ? 'seen' : alert.state;
-    await seq.query(`UPDATE alerts SET state = :nextState, revision = nextval('alert_revisions'), updated_at = :now WHERE id = :id`, {
-      replacements: { id: alert.id, nextState, now }, transaction,
+  async function markSeen(user: AuthUser, alert: AlertDto, transaction: Transaction): Promise<boolean> {
+    const now = ctx.now();
+    const [, created] = await AlertView.findOrCreate({
+      where: { alertId: alert.id, organizationId: user.organizationId! },
+      defaults: { alertId: alert.id, organizationId: user.organizationId!, seenBy: user.id, seenAt: now },
+      transaction,
     });
+    if (!created) return false;
+    await AlertEvent.create({ alertId: alert.id, action: 'seen', actorId: user.id, organizationId: user.organizationId, createdAt: now }, { transaction });
+    const state = alert.state === 'raised' && isReceivingSide(user, alert) ? 'seen' : alert.state;
+    await Alert.update({ state, revision: ctx.sequelize.literal("nextval('alert_revisions')"), updatedAt: now }, { where: { id: alert.id }, transaction, silent: true });
     return true;
   }
 
   return {
     async list(user: AuthUser, query: AlertListQuery): Promise<AlertListDto> {
       const orgId = orgOf(user);
-      const alerts = await loadAlertDtos(seq, orgId, { sinceRevision: query.since, openOnly: query.state === 'open' });
-      const [counts] = await seq.query<{ latest: string | null; unseen: number }>(
-        `SELECT max(a.revision) AS latest,
-           count(*) FILTER (WHERE a.state <> 'resolved' AND NOT EXISTS (SELECT 1 FROM alert_views v WHERE v.alert_id = a.id AND v.organization_id = :orgId))::int AS unseen
-         FROM alerts a WHERE a.farm_id = :orgId OR a.apiary_id = :orgId`,
-        { replacements: { orgId }, type: QueryTypes.SELECT },
-      );
-      return { alerts, latestRevision: Number(counts.latest ?? query.since ?? 0), unseen: counts.unseen };
+      const alerts = await loadAlertDtos(ctx, orgId, { sinceRevision: query.since, openOnly: query.state === 'open' });
+      const counts = await alertCounts(ctx.sequelize, orgId);
+      return { alerts, latestRevision: counts.latest ?? query.since ?? 0, unseen: counts.unseen };
     },
 
-    get: load,
+    get: (user: AuthUser, id: string) => load(user, id),
 
     async seen(user: AuthUser, id: string): Promise<AlertDto> {
-      const alert = await load(user, id);
-      const changed = await seq.transaction((t) => markSeen(user, alert, t));
-      if (changed) await publishAlert(ctx, id, 'alert:updated');
-      return load(user, id);
+      return ctx.sequelize.transaction(async (transaction) => {
+        const alert = await load(user, id, transaction);
+        if (await markSeen(user, alert, transaction)) await queueAlertPublication(ctx, transaction, id, 'alert:updated');
+        return load(user, id, transaction);
+      });
     },
 
     async answer(user: AuthUser, id: string, answer: AlertAnswer): Promise<AlertDto> {
-      const alert = await load(user, id);
-      if (alert.state === 'resolved') throw wrongState('This alert is resolved: the check no longer finds a conflict.');
       const allowed: readonly string[] = user.organizationKind === 'apiary' ? apiaryResponses : farmResponses;
-      if (!allowed.includes(answer.response)) throw badRequest('Please check: response.', { response: `must be one of ${allowed.join(', ')}` });
-      const now = ctx.now().toISOString();
-      await seq.transaction(async (transaction) => {
+      return ctx.sequelize.transaction(async (transaction) => {
+        await Alert.findByPk(id, { attributes: ['id'], lock: transaction.LOCK.UPDATE, transaction });
+        const alert = await load(user, id, transaction);
+        if (alert.state === 'resolved') throw wrongState('This alert is resolved: the check no longer finds a conflict.');
+        if (!allowed.includes(answer.response)) throw badRequest('Please check: response.', { response: `must be one of ${allowed.join(', ')}` });
+        const now = ctx.now();
         await markSeen(user, alert, transaction);
-        await seq.query(
-          `INSERT INTO alert_events (alert_id, action, actor_id, organization_id, response, note, created_at)
-           VALUES (:alertId, 'answered', :userId, :orgId, :response, :note, :now)`,
-          { replacements: { alertId: id, userId: user.id, orgId: user.organizationId, response: answer.response, note: answer.note, now }, transaction },
+        await AlertEvent.create(
+          { alertId: id, action: 'answered', actorId: user.id, organizationId: user.organizationId, response: answer.response, note: answer.note ?? null, createdAt: now },
+          { transaction },
         );
-        await seq.query(`UPDATE alerts SET state = 'answered', revision = nextval('alert_revisions'), updated_at = :now WHERE id = :id`, {
-          replacements: { id, now }, transaction,
-        });
+        await Alert.update({ state: 'answered', revision: ctx.sequelize.literal("nextval('alert_revisions')"), updatedAt: now }, { where: { id }, transaction, silent: true });
+        await queueAlertPublication(ctx, transaction, id, 'alert:updated');
+        return load(user, id, transaction);
       });
-      await publishAlert(ctx, id, 'alert:updated');
-      return load(user, id);
     },
   };
 }

@@ -1,12 +1,13 @@
 // The conflict check of one spray: runs the database search, groups what it found by
 // apiary business and grades each group with the shared rules. The dry run and the
-// stored alerts use this same function.
-import type { Sequelize } from 'sequelize';
+// stored alerts use this same function; inside a transaction every query runs on its
+// connection, one after another.
+import type { Sequelize, Transaction } from 'sequelize';
 import { productBeeHazard } from '../../../../shared/domain/bee-toxicity.js';
 import { gradeConflict, compareGrades, sprayCautions } from '../../../../shared/domain/conflict-grading.js';
 import { hoursDuringBeeFlight } from '../../../../shared/domain/bee-flight.js';
 import type { ConflictColonies, SprayCheckResult, SprayConflict } from '../../../../shared/schemas/sprays.js';
-import { searchBloom, searchExposures, sprayedBlocks, type ExposureRow, type SprayedBlockRow } from './conflict-search.js';
+import { searchBloom, searchExposures, sprayedBlocks, type ExposureRow, type SprayedBlockRow } from './conflicts.queries.js';
 
 const HOUR_MS = 3_600_000;
 
@@ -45,15 +46,13 @@ function groupColonies(rows: ExposureRow[]): ConflictColonies {
   };
 }
 
-export async function runConflictCheck(sequelize: Sequelize, input: CheckInput): Promise<CheckOutput> {
+export async function runConflictCheck(sequelize: Sequelize, input: CheckInput, transaction?: Transaction | null): Promise<CheckOutput> {
   const hazard = productBeeHazard({ ld50UgPerBee: input.ld50UgPerBee, rt25Hours: input.rt25Hours });
   const exposureTo = new Date(input.to.getTime() + hazard.residualHours * HOUR_MS);
   const scope = { farmId: input.farmId, blockIds: input.blockIds, from: input.from, to: input.to, exposureTo, bufferM: input.bufferM };
-  const [blocks, exposures, duringBloom] = await Promise.all([
-    sprayedBlocks(sequelize, input.farmId, input.blockIds),
-    searchExposures(sequelize, scope),
-    searchBloom(sequelize, scope),
-  ]);
+  const blocks = await sprayedBlocks(sequelize, input.farmId, input.blockIds, transaction);
+  const exposures = await searchExposures(sequelize, scope, transaction);
+  const duringBloom = await searchBloom(sequelize, scope, transaction);
   // Flight hours at the first sprayed block's centre: the blocks of one plan lie close together.
   const flightHours = blocks.length ? hoursDuringBeeFlight(input.from, input.to, blocks[0].lat, blocks[0].lon) : 0;
   const noticeGivenHours = (input.from.getTime() - input.noticedAt.getTime()) / HOUR_MS;

@@ -1,38 +1,46 @@
-// Runs the conflict check of a stored spray plan, from its own row and its farm's buffer.
-import { QueryTypes, type Sequelize } from 'sequelize';
+// Runs the conflict check of a stored spray plan, from its own row and its farm's buffer,
+// on the caller's transaction (locking the plan's row when the caller will write alerts).
+import type { Transaction } from 'sequelize';
+import type { AppContext } from '../../context.js';
 import type { SprayState } from '../../../../shared/schemas/sprays.js';
 import { runConflictCheck, type CheckOutput } from './conflict-check.js';
-import { sprayWindow } from '../sprays/spray-window.js';
+import { sprayWindow } from './spray-window.js';
 
 export interface StoredSpray {
   id: string;
-  farm_id: string;
+  farmId: string;
   state: SprayState;
-  starts_at: Date;
-  ends_at: Date;
-  applied_at: Date | null;
-  ld50_ug_per_bee: number | null;
-  rt25_hours: number | null;
-  noticed_at: Date;
-  spray_buffer_m: number;
-  block_ids: string[];
+  startsAt: Date;
+  endsAt: Date;
+  appliedAt: Date | null;
+  ld50UgPerBee: number | null;
+  rt25Hours: number | null;
+  noticedAt: Date;
+  sprayBufferM: number;
+  blockIds: string[];
 }
 
-export async function loadStoredSpray(sequelize: Sequelize, sprayId: string, options: { forUpdate?: boolean; transaction?: import('sequelize').Transaction } = {}): Promise<StoredSpray | null> {
-  const [row] = await sequelize.query<StoredSpray>(
-    `SELECT s.id, s.farm_id, s.state, lower(s.planned_window) AS starts_at, upper(s.planned_window) AS ends_at, s.applied_at, s.ld50_ug_per_bee,
-       s.rt25_hours, s.noticed_at, o.spray_buffer_m,
-       ARRAY(SELECT block_id::text FROM spray_plan_blocks WHERE spray_plan_id = s.id ORDER BY block_id) AS block_ids
-     FROM spray_plans s JOIN organizations o ON o.id = s.farm_id WHERE s.id = :sprayId ${options.forUpdate ? 'FOR UPDATE OF s' : ''}`,
-    { replacements: { sprayId }, type: QueryTypes.SELECT, transaction: options.transaction },
-  );
-  return row ?? null;
-}
-
-export function checkStoredSpray(sequelize: Sequelize, spray: StoredSpray): Promise<CheckOutput> {
-  const window = sprayWindow({ startsAt: new Date(spray.starts_at), endsAt: new Date(spray.ends_at), appliedAt: spray.applied_at ? new Date(spray.applied_at) : null });
-  return runConflictCheck(sequelize, {
-    farmId: spray.farm_id, blockIds: spray.block_ids, ...window, ld50UgPerBee: spray.ld50_ug_per_bee, rt25Hours: spray.rt25_hours,
-    bufferM: Number(spray.spray_buffer_m), noticedAt: new Date(spray.noticed_at),
+export async function loadStoredSpray(ctx: AppContext, sprayId: string, options: { forUpdate?: boolean; transaction?: Transaction } = {}): Promise<StoredSpray | null> {
+  const { SprayPlan, SprayPlanBlock } = ctx.models;
+  const { transaction } = options;
+  const spray = await SprayPlan.findByPk(sprayId, {
+    include: [{ association: 'farm', attributes: ['sprayBufferM'] }],
+    transaction,
+    ...(options.forUpdate && transaction ? { lock: { level: transaction.LOCK.UPDATE, of: SprayPlan } } : {}),
   });
+  if (!spray) return null;
+  const links = await SprayPlanBlock.findAll({ where: { sprayPlanId: sprayId }, attributes: ['blockId'], order: [['blockId', 'ASC']], transaction });
+  return {
+    id: spray.id, farmId: spray.farmId, state: spray.state, startsAt: spray.plannedWindow[0].value, endsAt: spray.plannedWindow[1].value,
+    appliedAt: spray.appliedAt, ld50UgPerBee: spray.ld50UgPerBee, rt25Hours: spray.rt25Hours, noticedAt: spray.noticedAt,
+    sprayBufferM: Number(spray.farm!.sprayBufferM), blockIds: links.map((l) => l.blockId),
+  };
+}
+
+export function checkStoredSpray(ctx: AppContext, spray: StoredSpray, transaction?: Transaction): Promise<CheckOutput> {
+  const window = sprayWindow({ startsAt: spray.startsAt, endsAt: spray.endsAt, appliedAt: spray.appliedAt });
+  return runConflictCheck(ctx.sequelize, {
+    farmId: spray.farmId, blockIds: spray.blockIds, ...window, ld50UgPerBee: spray.ld50UgPerBee, rt25Hours: spray.rt25Hours,
+    bufferM: spray.sprayBufferM, noticedAt: spray.noticedAt,
+  }, transaction);
 }

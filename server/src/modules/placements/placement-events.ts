@@ -1,26 +1,14 @@
-// An in-process hook for code that must react when colonies' time on site may have
-// changed: a placement's field step, an agreement confirmed or amended. The spray
-// conflict check subscribes here to re-run. Listeners run after the change is stored;
-// one that fails is logged and does not undo the change.
+// What the placements feature tells the spray conflict check when colonies' time on site
+// may have changed (delivered, moved, picked up, an agreement confirmed or amended): called
+// with the change's own transaction, it writes a durable re-check job for the placement's
+// agreement that exists exactly when the change is committed.
+import type { Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
+import { agreementChanged } from '../alerts/conflict-rechecks.js';
 
 export type PlacementChangeReason = 'scheduled' | 'delivered' | 'picked-up' | 'strength-checked' | 'disputed' | 'agreement-amended' | 'agreement-ended';
-export type PlacementListener = (ctx: AppContext, placementId: string, reason: PlacementChangeReason) => void | Promise<void>;
 
-const listeners = new Set<PlacementListener>();
-
-/** Subscribes; returns a function that unsubscribes. */
-export function onPlacementChanged(listener: PlacementListener): () => void {
-  listeners.add(listener);
-  return () => listeners.delete(listener);
-}
-
-export async function placementChanged(ctx: AppContext, placementId: string, reason: PlacementChangeReason): Promise<void> {
-  for (const listener of [...listeners]) {
-    try {
-      await listener(ctx, placementId, reason);
-    } catch (err) {
-      ctx.logger.error({ err, placementId, reason }, 'placement listener failed');
-    }
-  }
+export async function placementChanged(ctx: AppContext, transaction: Transaction, placementId: string, _reason: PlacementChangeReason): Promise<void> {
+  const placement = await ctx.models.Placement.findByPk(placementId, { attributes: ['agreementId'], transaction });
+  if (placement) await agreementChanged(ctx, transaction, placement.agreementId);
 }

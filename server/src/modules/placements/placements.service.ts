@@ -1,7 +1,7 @@
 // Placements in the field: the crew marks colonies delivered (time, position, photos),
 // records strength checks, and marks them picked up; a grower may dispute a count. Each
-// step is stored, told to the other side at once and by e-mail, and handed to the
-// placement listeners (the spray conflict check). on_site is the agreement's window until
+// step is stored, told to the other side at once and by e-mail; delivery and pickup queue
+// the spray conflict re-check in their transaction (placement-events.ts). on_site is the agreement's window until
 // delivery, then [delivered_at, picked_up_at).
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
@@ -100,7 +100,6 @@ export function createPlacementsService(ctx: AppContext) {
       text: `${user.name} of ${user.organizationName}: ${mailText}\nRequest: ${row.request_title}`,
       includeCrew: otherSide === row.apiary_id,
     });
-    await placementChanged(ctx, id, reason);
     return toDto(await findOwn(user, id));
   }
 
@@ -134,6 +133,7 @@ export function createPlacementsService(ctx: AppContext) {
           t,
         );
         await recordRequestEvent(ctx, t, p.request_id, user.id, 'placement-delivered', { placementId: id, colonies: body.coloniesDelivered });
+        await placementChanged(ctx, t, id, 'delivered');
       });
       return after(user, id, 'delivered', `${body.coloniesDelivered} colonies delivered at ${at.toISOString()}.`);
     },
@@ -153,6 +153,7 @@ export function createPlacementsService(ctx: AppContext) {
           t,
         );
         await recordRequestEvent(ctx, t, p.request_id, user.id, 'placement-picked-up', { placementId: id, colonies: body.coloniesPickedUp });
+        await placementChanged(ctx, t, id, 'picked-up');
         const open = await selectOne<{ agreement_id: string; n: string }>(
           ctx,
           "SELECT agreement_id, count(*) FILTER (WHERE state <> 'picked-up') AS n FROM placements WHERE agreement_id = (SELECT agreement_id FROM placements WHERE id = :id) GROUP BY agreement_id",

@@ -1,43 +1,24 @@
-// Spray plans of a farm: plan, change, move, apply, cancel; each change re-runs the
-// conflict check and updates the alerts. Every query is scoped to the user's farm.
-import { QueryTypes } from 'sequelize';
+// Spray plans of a farm: plan, change, move, apply, cancel. Each save runs in one
+// transaction: the plan's rows, the one conflict check the answer is built from, the alerts
+// it raises or clears with their publication jobs, and a durable re-check job (which
+// re-reads after the commit, so a placement changed while the save ran is not missed).
+// Every query is scoped to the user's farm.
+import { Op, type Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
+import type { SprayPlan } from '../../db/models/spray-plan.model.js';
 import { notFound, wrongState, badRequest } from '../../errors/http-errors.js';
 import { productBeeHazard } from '../../../../shared/domain/bee-toxicity.js';
 import type { SprayApply, SprayDto, SprayInput, SprayState, SprayUpdate, SprayWithCheck } from '../../../../shared/schemas/sprays.js';
 import { runConflictCheck, type CheckOutput } from '../conflicts/conflict-check.js';
-import { recheckSpray } from '../alerts/alert-recheck.js';
-import { exposureEnd, sprayWindow } from './spray-window.js';
 import { checkStoredSpray, loadStoredSpray } from '../conflicts/stored-spray-check.js';
+import { exposureEnd, sprayWindow } from '../conflicts/spray-window.js';
+import { recheckSprayIn } from '../alerts/alert-recheck.js';
+import { sprayChanged } from '../alerts/conflict-rechecks.js';
+import { blocksOfSprays, bufferArea } from './sprays.queries.js';
 
-interface SprayRow {
-  id: string; farm_id: string; state: SprayState; starts_at: Date; ends_at: Date; applied_at: Date | null; product_name: string;
-  epa_reg_no: string | null; active_ingredients: string[]; ld50_ug_per_bee: number | null; rt25_hours: number | null; target_pest: string | null;
-  applicator_name: string | null; notes: string | null; noticed_at: Date; created_at: Date; updated_at: Date;
-  blocks: SprayDto['blocks']; open_alerts: number;
-}
-
-const selectSprays = `
-  SELECT s.id, s.farm_id, s.state, lower(s.planned_window) AS starts_at, upper(s.planned_window) AS ends_at, s.applied_at, s.product_name,
-    s.epa_reg_no, s.active_ingredients, s.ld50_ug_per_bee, s.rt25_hours, s.target_pest, s.applicator_name, s.notes, s.noticed_at,
-    s.created_at, s.updated_at,
-    (SELECT coalesce(json_agg(json_build_object('id', b.id, 'name', b.name, 'outline', ST_AsGeoJSON(b.outline)::json,
-        'lon', ST_X(coalesce(b.location, ST_Centroid(b.outline))), 'lat', ST_Y(coalesce(b.location, ST_Centroid(b.outline)))) ORDER BY b.name), '[]')
-      FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks,
-    (SELECT count(*)::int FROM alerts a WHERE a.spray_plan_id = s.id AND a.state <> 'resolved') AS open_alerts
-  FROM spray_plans s`;
-
-function toDto(r: SprayRow): SprayDto {
-  return {
-    id: r.id, farmId: r.farm_id, state: r.state, startsAt: new Date(r.starts_at).toISOString(), endsAt: new Date(r.ends_at).toISOString(),
-    appliedAt: r.applied_at ? new Date(r.applied_at).toISOString() : null, productName: r.product_name, epaRegNo: r.epa_reg_no,
-    activeIngredients: r.active_ingredients, ld50UgPerBee: r.ld50_ug_per_bee, rt25Hours: r.rt25_hours, targetPest: r.target_pest,
-    applicatorName: r.applicator_name, notes: r.notes, blocks: r.blocks,
-    hazard: productBeeHazard({ ld50UgPerBee: r.ld50_ug_per_bee, rt25Hours: r.rt25_hours }), openAlerts: r.open_alerts,
-    createdAt: new Date(r.created_at).toISOString(), updatedAt: new Date(r.updated_at).toISOString(),
-  };
-}
+type Window = SprayPlan['plannedWindow'];
+const windowOf = (from: Date, to: Date): Window => [{ value: from, inclusive: true }, { value: to, inclusive: false }];
 
 function publicCheck(check: CheckOutput): SprayWithCheck['check'] {
   const { blocks: _blocks, ...rest } = check;
@@ -50,155 +31,150 @@ function farmOf(user: AuthUser): string {
 }
 
 export function createSpraysService(ctx: AppContext) {
-  const q = <T extends object>(sql: string, replacements: Record<string, unknown>) => ctx.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+  const { SprayPlan, SprayPlanBlock, Block, Organization, Alert } = ctx.models;
 
-  async function bufferOf(farmId: string): Promise<number> {
-    const [row] = await q<{ spray_buffer_m: number }>('SELECT spray_buffer_m FROM organizations WHERE id = :farmId', { farmId });
-    return Number(row.spray_buffer_m);
+  async function toDtos(plans: SprayPlan[], transaction?: Transaction): Promise<SprayDto[]> {
+    if (!plans.length) return [];
+    const ids = plans.map((p) => p.id);
+    const blocks = await blocksOfSprays(ctx.sequelize, ids, transaction);
+    const open = await Alert.count({ where: { sprayPlanId: ids, state: { [Op.ne]: 'resolved' } }, group: ['sprayPlanId'], transaction });
+    const openBySpray = new Map(open.map((o) => [String(o.sprayPlanId), Number(o.count)]));
+    return plans.map((p) => ({
+      id: p.id, farmId: p.farmId, state: p.state, startsAt: p.plannedWindow[0].value.toISOString(), endsAt: p.plannedWindow[1].value.toISOString(),
+      appliedAt: p.appliedAt?.toISOString() ?? null, productName: p.productName, epaRegNo: p.epaRegNo, activeIngredients: p.activeIngredients,
+      ld50UgPerBee: p.ld50UgPerBee, rt25Hours: p.rt25Hours, targetPest: p.targetPest, applicatorName: p.applicatorName, notes: p.notes,
+      blocks: blocks.get(p.id) ?? [], hazard: productBeeHazard({ ld50UgPerBee: p.ld50UgPerBee, rt25Hours: p.rt25Hours }),
+      openAlerts: openBySpray.get(p.id) ?? 0, createdAt: p.createdAt.toISOString(), updatedAt: p.updatedAt.toISOString(),
+    }));
   }
 
-  async function requireOwnBlocks(farmId: string, blockIds: string[]) {
+  async function requireOwnBlocks(farmId: string, blockIds: string[], transaction?: Transaction): Promise<string[]> {
     const unique = [...new Set(blockIds)];
-    const rows = await q<{ id: string }>('SELECT id FROM blocks WHERE farm_id = :farmId AND id = ANY(CAST(:ids AS uuid[]))', { farmId, ids: `{${unique.join(',')}}` });
-    if (rows.length !== unique.length) throw badRequest('Please check: blockIds.', { blockIds: 'every block must be one of your farm\'s blocks' });
+    const found = await Block.count({ where: { farmId, id: unique }, transaction });
+    if (found !== unique.length) throw badRequest('Please check: blockIds.', { blockIds: 'every block must be one of your farm\'s blocks' });
     return unique;
   }
 
-  async function load(farmId: string, id: string): Promise<SprayRow> {
-    const [row] = await q<SprayRow>(`${selectSprays} WHERE s.id = :id AND s.farm_id = :farmId`, { id, farmId });
-    if (!row) throw notFound('That spray plan');
-    return row;
+  /** The farm's own plan, locked for a change in this transaction. */
+  async function lockOwn(farmId: string, id: string, transaction: Transaction): Promise<SprayPlan> {
+    const plan = await SprayPlan.findOne({ where: { id, farmId }, lock: transaction.LOCK.UPDATE, transaction });
+    if (!plan) throw notFound('That spray plan');
+    return plan;
   }
 
-  async function withCheck(farmId: string, id: string): Promise<SprayWithCheck> {
-    const row = await load(farmId, id);
-    const stored = await loadStoredSpray(ctx.sequelize, id);
-    const check = await checkStoredSpray(ctx.sequelize, stored!);
-    const [area] = await q<{ buffer: string | null }>(
-      `SELECT ST_AsGeoJSON(ST_Union(ST_Buffer(coalesce(b.outline, b.location)::geography, o.spray_buffer_m)::geometry), 6) AS buffer
-       FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id JOIN organizations o ON o.id = b.farm_id WHERE sb.spray_plan_id = :id`, { id },
-    );
-    return {
-      spray: toDto(row),
-      check: publicCheck(row.state === 'cancelled' ? { ...check, conflicts: [] } : check),
-      buffer: area?.buffer ? JSON.parse(area.buffer) : null,
-    };
+  async function answer(farmId: string, id: string, check: CheckOutput, transaction?: Transaction): Promise<SprayWithCheck> {
+    const plan = await SprayPlan.findOne({ where: { id, farmId }, transaction });
+    if (!plan) throw notFound('That spray plan');
+    const [spray] = await toDtos([plan], transaction);
+    const buffer = await bufferArea(ctx.sequelize, id, transaction);
+    return { spray, check: publicCheck(check), buffer: buffer ? JSON.parse(buffer) : null };
   }
+
+  /** The rest of every save, in its transaction: the durable re-check job, then the one check. */
+  async function checkAndAnswer(farmId: string, id: string, transaction: Transaction): Promise<SprayWithCheck> {
+    await sprayChanged(ctx, transaction, id);
+    const { check } = await recheckSprayIn(ctx, transaction, id);
+    return answer(farmId, id, check!, transaction);
+  }
+
+  const save = (work: (t: Transaction) => Promise<SprayWithCheck>) => ctx.sequelize.transaction(work);
 
   return {
     async list(user: AuthUser, state?: SprayState): Promise<SprayDto[]> {
       const farmId = farmOf(user);
-      const rows = await q<SprayRow>(`${selectSprays} WHERE s.farm_id = :farmId ${state ? 'AND s.state = :state' : ''} ORDER BY lower(s.planned_window) DESC`, { farmId, state });
-      return rows.map(toDto);
+      const plans = await SprayPlan.findAll({ where: { farmId, ...(state ? { state } : {}) }, order: [['plannedWindow', 'DESC']] });
+      return toDtos(plans);
     },
 
-    get: (user: AuthUser, id: string) => withCheck(farmOf(user), id),
+    async get(user: AuthUser, id: string): Promise<SprayWithCheck> {
+      const farmId = farmOf(user);
+      const stored = await loadStoredSpray(ctx, id);
+      if (!stored || stored.farmId !== farmId) throw notFound('That spray plan');
+      const check = await checkStoredSpray(ctx, stored);
+      return answer(farmId, id, stored.state === 'cancelled' ? { ...check, conflicts: [] } : check);
+    },
 
     /** The dry run: the same check, nothing stored. */
     async check(user: AuthUser, input: SprayInput): Promise<SprayWithCheck['check']> {
       const farmId = farmOf(user);
       const blockIds = await requireOwnBlocks(farmId, input.blockIds);
+      const farm = await Organization.findByPk(farmId, { attributes: ['sprayBufferM'] });
       const check = await runConflictCheck(ctx.sequelize, {
         farmId, blockIds, from: new Date(input.startsAt), to: new Date(input.endsAt), ld50UgPerBee: input.ld50UgPerBee, rt25Hours: input.rt25Hours,
-        bufferM: await bufferOf(farmId), noticedAt: ctx.now(),
+        bufferM: Number(farm!.sprayBufferM), noticedAt: ctx.now(),
       });
       return publicCheck(check);
     },
 
-    async create(user: AuthUser, input: SprayInput): Promise<SprayWithCheck> {
+    create(user: AuthUser, input: SprayInput): Promise<SprayWithCheck> {
       const farmId = farmOf(user);
-      const blockIds = await requireOwnBlocks(farmId, input.blockIds);
-      const id = await ctx.sequelize.transaction(async (transaction) => {
-        const [row] = await ctx.sequelize.query<{ id: string }>(
-          `INSERT INTO spray_plans (farm_id, planned_window, exposure_window, product_name, epa_reg_no, active_ingredients, ld50_ug_per_bee,
-             rt25_hours, target_pest, applicator_name, notes, noticed_at, created_by)
-           VALUES (:farmId, tstzrange(:from, :to, '[)'), tstzrange(:from, :exposureTo, '[)'), :productName, :epaRegNo, CAST(:ingredients AS text[]),
-             :ld50, :rt25, :targetPest, :applicatorName, :notes, :now, :userId) RETURNING id`,
-          {
-            transaction, type: QueryTypes.SELECT,
-            replacements: {
-              farmId, from: input.startsAt, to: input.endsAt, exposureTo: exposureEnd(new Date(input.endsAt), input).toISOString(),
-              productName: input.productName, epaRegNo: input.epaRegNo, ingredients: toPgArray(input.activeIngredients), ld50: input.ld50UgPerBee,
-              rt25: input.rt25Hours, targetPest: input.targetPest, applicatorName: input.applicatorName, notes: input.notes,
-              now: ctx.now().toISOString(), userId: user.id,
-            },
-          },
-        );
-        await ctx.sequelize.query('INSERT INTO spray_plan_blocks (spray_plan_id, block_id) SELECT :id, unnest(CAST(:blockIds AS uuid[]))', {
-          transaction, replacements: { id: row.id, blockIds: `{${blockIds.join(',')}}` },
-        });
-        return row.id;
+      return save(async (transaction) => {
+        const blockIds = await requireOwnBlocks(farmId, input.blockIds, transaction);
+        const from = new Date(input.startsAt);
+        const to = new Date(input.endsAt);
+        const plan = await SprayPlan.create({
+          farmId, plannedWindow: windowOf(from, to), exposureWindow: windowOf(from, exposureEnd(to, input)), appliedAt: null,
+          productName: input.productName, epaRegNo: input.epaRegNo, activeIngredients: input.activeIngredients, ld50UgPerBee: input.ld50UgPerBee,
+          rt25Hours: input.rt25Hours, targetPest: input.targetPest, applicatorName: input.applicatorName, notes: input.notes,
+          noticedAt: ctx.now(), createdBy: user.id,
+        }, { transaction });
+        await SprayPlanBlock.bulkCreate(blockIds.map((blockId) => ({ sprayPlanId: plan.id, blockId })), { transaction });
+        return checkAndAnswer(farmId, plan.id, transaction);
       });
-      await recheckSpray(ctx, id);
-      return withCheck(farmId, id);
     },
 
-    async update(user: AuthUser, id: string, patch: SprayUpdate): Promise<SprayWithCheck> {
+    update(user: AuthUser, id: string, patch: SprayUpdate): Promise<SprayWithCheck> {
       const farmId = farmOf(user);
-      const row = await load(farmId, id);
-      if (row.state !== 'planned') throw wrongState(`This spray is ${row.state}; only a planned spray can be changed.`);
-      const blockIds = patch.blockIds ? await requireOwnBlocks(farmId, patch.blockIds) : null;
-      const startsAt = patch.startsAt ?? new Date(row.starts_at).toISOString();
-      const endsAt = patch.endsAt ?? new Date(row.ends_at).toISOString();
-      const moved = startsAt !== new Date(row.starts_at).toISOString() || endsAt !== new Date(row.ends_at).toISOString() || blockIds !== null;
-      const ld50 = patch.ld50UgPerBee !== undefined ? patch.ld50UgPerBee : row.ld50_ug_per_bee;
-      const rt25 = patch.rt25Hours !== undefined ? patch.rt25Hours : row.rt25_hours;
-      const pick = <K extends keyof SprayUpdate>(key: K, current: unknown) => (patch[key] !== undefined ? patch[key] : current);
-      await ctx.sequelize.transaction(async (transaction) => {
-        await ctx.sequelize.query(
-          `UPDATE spray_plans SET planned_window = tstzrange(:from, :to, '[)'), exposure_window = tstzrange(:from, :exposureTo, '[)'),
-             product_name = :productName, epa_reg_no = :epaRegNo, active_ingredients = CAST(:ingredients AS text[]), ld50_ug_per_bee = :ld50,
-             rt25_hours = :rt25, target_pest = :targetPest, applicator_name = :applicatorName, notes = :notes,
-             noticed_at = CASE WHEN :moved THEN CAST(:now AS timestamptz) ELSE noticed_at END, updated_at = now()
-           WHERE id = :id`,
-          {
-            transaction,
-            replacements: {
-              id, from: startsAt, to: endsAt, exposureTo: exposureEnd(new Date(endsAt), { ld50UgPerBee: ld50, rt25Hours: rt25 }).toISOString(),
-              productName: pick('productName', row.product_name), epaRegNo: pick('epaRegNo', row.epa_reg_no),
-              ingredients: toPgArray((pick('activeIngredients', row.active_ingredients) as string[]) ?? []), ld50, rt25,
-              targetPest: pick('targetPest', row.target_pest), applicatorName: pick('applicatorName', row.applicator_name), notes: pick('notes', row.notes),
-              moved, now: ctx.now().toISOString(),
-            },
-          },
-        );
+      return save(async (transaction) => {
+        const plan = await lockOwn(farmId, id, transaction);
+        if (plan.state !== 'planned') throw wrongState(`This spray is ${plan.state}; only a planned spray can be changed.`);
+        const blockIds = patch.blockIds ? await requireOwnBlocks(farmId, patch.blockIds, transaction) : null;
+        const current = plan.plannedWindow;
+        const from = patch.startsAt ? new Date(patch.startsAt) : current[0].value;
+        const to = patch.endsAt ? new Date(patch.endsAt) : current[1].value;
+        const moved = from.getTime() !== current[0].value.getTime() || to.getTime() !== current[1].value.getTime() || blockIds !== null;
+        const ld50 = patch.ld50UgPerBee !== undefined ? patch.ld50UgPerBee : plan.ld50UgPerBee;
+        const rt25 = patch.rt25Hours !== undefined ? patch.rt25Hours : plan.rt25Hours;
+        const pick = <K extends keyof SprayUpdate & keyof SprayPlan>(key: K) => (patch[key] !== undefined ? patch[key] : plan[key]);
+        await plan.update({
+          plannedWindow: windowOf(from, to), exposureWindow: windowOf(from, exposureEnd(to, { ld50UgPerBee: ld50, rt25Hours: rt25 })),
+          productName: pick('productName') as string, epaRegNo: pick('epaRegNo') as string | null,
+          activeIngredients: (pick('activeIngredients') as string[] | null) ?? [], ld50UgPerBee: ld50, rt25Hours: rt25,
+          targetPest: pick('targetPest') as string | null, applicatorName: pick('applicatorName') as string | null, notes: pick('notes') as string | null,
+          ...(moved ? { noticedAt: ctx.now() } : {}),
+        }, { transaction });
         if (blockIds) {
-          await ctx.sequelize.query('DELETE FROM spray_plan_blocks WHERE spray_plan_id = :id', { transaction, replacements: { id } });
-          await ctx.sequelize.query('INSERT INTO spray_plan_blocks (spray_plan_id, block_id) SELECT :id, unnest(CAST(:blockIds AS uuid[]))', {
-            transaction, replacements: { id, blockIds: `{${blockIds.join(',')}}` },
-          });
+          await SprayPlanBlock.destroy({ where: { sprayPlanId: id }, transaction });
+          await SprayPlanBlock.bulkCreate(blockIds.map((blockId) => ({ sprayPlanId: id, blockId })), { transaction });
         }
+        return checkAndAnswer(farmId, id, transaction);
       });
-      await recheckSpray(ctx, id);
-      return withCheck(farmId, id);
     },
 
-    async apply(user: AuthUser, id: string, input: SprayApply): Promise<SprayWithCheck> {
+    apply(user: AuthUser, id: string, input: SprayApply): Promise<SprayWithCheck> {
       const farmId = farmOf(user);
-      const row = await load(farmId, id);
-      if (row.state !== 'planned') throw wrongState(`This spray is ${row.state}; only a planned spray can be recorded as applied.`);
-      const appliedAt = new Date(input.appliedAt);
-      if (appliedAt.getTime() > ctx.now().getTime() + 5 * 60_000) throw badRequest('Please check: appliedAt.', { appliedAt: 'cannot be in the future' });
-      const window = sprayWindow({ startsAt: new Date(row.starts_at), endsAt: new Date(row.ends_at), appliedAt });
-      await ctx.sequelize.query(
-        `UPDATE spray_plans SET state = 'applied', applied_at = :appliedAt, exposure_window = tstzrange(:from, :exposureTo, '[)'), updated_at = now() WHERE id = :id`,
-        { replacements: { id, appliedAt: appliedAt.toISOString(), from: window.from.toISOString(), exposureTo: exposureEnd(window.to, { ld50UgPerBee: row.ld50_ug_per_bee, rt25Hours: row.rt25_hours }).toISOString() } },
-      );
-      await recheckSpray(ctx, id);
-      return withCheck(farmId, id);
+      return save(async (transaction) => {
+        const plan = await lockOwn(farmId, id, transaction);
+        if (plan.state !== 'planned') throw wrongState(`This spray is ${plan.state}; only a planned spray can be recorded as applied.`);
+        const appliedAt = new Date(input.appliedAt);
+        if (appliedAt.getTime() > ctx.now().getTime() + 5 * 60_000) throw badRequest('Please check: appliedAt.', { appliedAt: 'cannot be in the future' });
+        const window = sprayWindow({ startsAt: plan.plannedWindow[0].value, endsAt: plan.plannedWindow[1].value, appliedAt });
+        await plan.update({
+          state: 'applied', appliedAt,
+          exposureWindow: windowOf(window.from, exposureEnd(window.to, { ld50UgPerBee: plan.ld50UgPerBee, rt25Hours: plan.rt25Hours })),
+        }, { transaction });
+        return checkAndAnswer(farmId, id, transaction);
+      });
     },
 
-    async cancel(user: AuthUser, id: string): Promise<SprayWithCheck> {
+    cancel(user: AuthUser, id: string): Promise<SprayWithCheck> {
       const farmId = farmOf(user);
-      const row = await load(farmId, id);
-      if (row.state !== 'planned') throw wrongState(`This spray is ${row.state}; only a planned spray can be cancelled.`);
-      await ctx.sequelize.query(`UPDATE spray_plans SET state = 'cancelled', updated_at = now() WHERE id = :id`, { replacements: { id } });
-      await recheckSpray(ctx, id);
-      return withCheck(farmId, id);
+      return save(async (transaction) => {
+        const plan = await lockOwn(farmId, id, transaction);
+        if (plan.state !== 'planned') throw wrongState(`This spray is ${plan.state}; only a planned spray can be cancelled.`);
+        await plan.update({ state: 'cancelled' }, { transaction });
+        return checkAndAnswer(farmId, id, transaction);
+      });
     },
   };
-}
-
-function toPgArray(values: string[]): string {
-  return `{${values.map((v) => `"${v.replace(/\\/g, '\\\\').replace(/"/g, '\\"')}"`).join(',')}}`;
 }

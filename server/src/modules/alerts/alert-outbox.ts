@@ -1,0 +1,28 @@
+// The alert outbox: the jobs that publish a changed alert to the sockets of every
+// organization it concerns and e-mail a raised one, written in the same transaction as the
+// alert rows and their history. They exist exactly when the change is committed; the
+// queue delivers them at least once (clients drop an alert revision they already hold).
+import type { Transaction } from 'sequelize';
+import type { AppContext } from '../../context.js';
+import { queueNames } from '../../jobs/queue-names.js';
+import type { AlertDto } from '../../../../shared/schemas/alerts.js';
+import { alertEmail, alertRecipients } from './alert-emails.js';
+
+export type AlertEventName = 'alert:raised' | 'alert:updated';
+
+export interface AlertPublishJob {
+  alertId: string;
+  event: AlertEventName;
+}
+
+export async function queueAlertPublication(ctx: AppContext, transaction: Transaction, alertId: string, event: AlertEventName): Promise<void> {
+  await ctx.jobs.send<AlertPublishJob>(queueNames.alertPublish, { alertId, event }, { transaction: { sequelize: ctx.sequelize, transaction } });
+}
+
+/** One e-mail job per person to tell (see alert-emails.ts), in the caller's transaction. */
+export async function queueAlertEmails(ctx: AppContext, transaction: Transaction, alert: AlertDto): Promise<number> {
+  const people = await alertRecipients(ctx, alert, transaction);
+  const email = alertEmail(ctx, alert);
+  for (const to of people) await ctx.jobs.send(queueNames.sendEmail, { to, ...email }, { transaction: { sequelize: ctx.sequelize, transaction } });
+  return people.length;
+}

@@ -1,0 +1,27 @@
+// SQL the alert models cannot say well: the viewer's counts (latest revision, unseen open
+// alerts) and the transaction-scoped advisory lock that orders a re-check after the change
+// that asked for it. Bind parameters only.
+import type { Sequelize, Transaction } from 'sequelize';
+import { queryOne } from '../../db/query-rows.js';
+
+export async function alertCounts(sequelize: Sequelize, orgId: string): Promise<{ latest: number | null; unseen: number }> {
+  const row = await queryOne<{ latest: string | null; unseen: number }>(
+    sequelize,
+    `SELECT max(a.revision) AS latest,
+       count(*) FILTER (WHERE a.state <> 'resolved' AND NOT EXISTS (SELECT 1 FROM alert_views v WHERE v.alert_id = a.id AND v.organization_id = $orgId))::int AS unseen
+     FROM alerts a WHERE a.farm_id = $orgId OR a.apiary_id = $orgId`,
+    { bind: { orgId } },
+  );
+  return { latest: row?.latest == null ? null : Number(row.latest), unseen: row?.unseen ?? 0 };
+}
+
+/**
+ * Holds a re-check key until the transaction ends: shared by each change that asks for the
+ * re-check, exclusive by the re-check itself, which therefore reads only after every such
+ * change has committed (a waiting job that the change's own job collapsed into cannot run
+ * ahead of it).
+ */
+export async function holdRecheckKey(sequelize: Sequelize, transaction: Transaction, key: string, mode: 'shared' | 'exclusive'): Promise<void> {
+  const sql = mode === 'shared' ? 'SELECT pg_advisory_xact_lock_shared(hashtextextended($key, 0))' : 'SELECT pg_advisory_xact_lock(hashtextextended($key, 0))';
+  await queryOne(sequelize, sql, { bind: { key }, transaction });
+}

@@ -1,0 +1,157 @@
+// The conflict search in PostgreSQL, which the ORM cannot say: colonies placed or expected
+// on the sprayed blocks or at drop sites within the farm's buffer (ST_DWithin on geography,
+// GiST), on site during the spray window extended by the residual time (tstzrange &&, GiST),
+// whether the sprayed blocks bloom in that window, and which sprays a changed block or
+// agreement may touch. Bind parameters only; pass the caller's transaction.
+import type { Sequelize, Transaction } from 'sequelize';
+import { queryOne, queryRows } from '../../db/query-rows.js';
+
+export interface SearchScope {
+  farmId: string;
+  blockIds: string[];
+  /** The spray itself. */
+  from: Date;
+  to: Date;
+  /** End of the spray extended by the residual hours. */
+  exposureTo: Date;
+  bufferM: number;
+}
+
+/** Colonies at one drop site under one agreement, placed or expected. */
+export interface ExposureRow {
+  drop_site_id: string;
+  drop_site_name: string;
+  block_name: string;
+  lon: number;
+  lat: number;
+  distance_m: number;
+  on_sprayed_block: boolean;
+  agreement_id: string;
+  agreement_state: string;
+  apiary_id: string;
+  apiary_name: string;
+  notice_hours: number;
+  colonies: number;
+  placed: boolean;
+  during_spray: boolean;
+}
+
+export interface SprayedBlockRow {
+  id: string;
+  name: string;
+  outline: string | null;
+  lon: number;
+  lat: number;
+}
+
+const sprayedCte = `
+  sprayed AS (
+    SELECT b.id, b.name, coalesce(b.outline, b.location) AS geom
+    FROM blocks b WHERE b.id = ANY($blockIds::uuid[]) AND b.farm_id = $farmId
+  )`;
+
+const exposureSql = `
+  WITH ${sprayedCte},
+  near_sites AS (
+    -- The buffer test is on the spheroid; the distance shown is on the sphere (within 0.5 %, and cheaper).
+    SELECT DISTINCT ON (d.id) d.id, d.request_id, d.name, d.block_id, d.colonies_planned, d.location, x.distance_m
+    FROM sprayed s JOIN drop_sites d ON ST_DWithin(d.location::geography, s.geom::geography, $bufferM),
+      LATERAL (SELECT ST_Distance(d.location::geography, s.geom::geography, false) AS distance_m) x
+    ORDER BY d.id, x.distance_m
+  ),
+  found AS (
+    SELECT n.id AS drop_site_id, a.id AS agreement_id, a.state AS agreement_state, a.apiary_id, a.notice_hours,
+      coalesce(p.colonies_delivered, p.colonies_planned) AS colonies, p.state <> 'scheduled' AS placed,
+      p.on_site && tstzrange($from, $to, '[)') AS during_spray
+    FROM near_sites n
+    JOIN placements p ON p.drop_site_id = n.id AND p.on_site && tstzrange($from, $exposureTo, '[)')
+    JOIN agreements a ON a.id = p.agreement_id
+    WHERE p.state <> 'scheduled' OR a.state IN ('awaiting-signatures', 'in-force')
+    UNION ALL
+    -- Agreed but not yet scheduled: the agreement's window at its request's drop sites.
+    SELECT n.id, a.id, a.state, a.apiary_id, a.notice_hours, least(a.colonies, n.colonies_planned), false,
+      a.expected_on_site && tstzrange($from, $to, '[)')
+    FROM near_sites n
+    JOIN agreements a ON a.request_id = n.request_id AND a.state IN ('awaiting-signatures', 'in-force')
+      AND a.expected_on_site && tstzrange($from, $exposureTo, '[)')
+    WHERE NOT EXISTS (SELECT 1 FROM placements p WHERE p.agreement_id = a.id)
+  )
+  SELECT f.drop_site_id, n.name AS drop_site_name, b.name AS block_name, ST_X(n.location) AS lon, ST_Y(n.location) AS lat,
+    n.distance_m, (n.block_id IN (SELECT id FROM sprayed)) AS on_sprayed_block,
+    f.agreement_id, f.agreement_state, f.apiary_id, o.name AS apiary_name, f.notice_hours, f.colonies, f.placed, f.during_spray
+  FROM found f
+  JOIN near_sites n ON n.id = f.drop_site_id
+  JOIN blocks b ON b.id = n.block_id
+  JOIN organizations o ON o.id = f.apiary_id
+  ORDER BY o.name, n.distance_m`;
+
+const bloomSql = `
+  SELECT EXISTS (
+    SELECT 1 FROM current_bloom_windows w
+    JOIN blocks b ON b.id = w.block_id
+    JOIN organizations o ON o.id = b.farm_id
+    WHERE w.block_id = ANY($blockIds::uuid[]) AND b.farm_id = $farmId
+      AND tstzrange((w.bloom_start::timestamp AT TIME ZONE o.time_zone), ((w.petal_fall + 1)::timestamp AT TIME ZONE o.time_zone), '[)')
+          && tstzrange($from, $exposureTo, '[)')
+  ) AS during_bloom`;
+
+const blocksSql = `
+  WITH ${sprayedCte}
+  SELECT id, name, ST_AsGeoJSON(geom) AS outline, ST_X(ST_Centroid(geom)) AS lon, ST_Y(ST_Centroid(geom)) AS lat FROM sprayed ORDER BY name`;
+
+/** The exposure search's SQL, for the benchmark's EXPLAIN (bind parameters $farmId, $blockIds, $from, $to, $exposureTo, $bufferM). */
+export const exposureSqlForExplain = exposureSql;
+
+export function searchBind(scope: SearchScope) {
+  return { farmId: scope.farmId, blockIds: scope.blockIds, from: scope.from, to: scope.to, exposureTo: scope.exposureTo, bufferM: scope.bufferM };
+}
+
+type Tx = Transaction | null | undefined;
+
+export function sprayedBlocks(sequelize: Sequelize, farmId: string, blockIds: string[], transaction?: Tx): Promise<SprayedBlockRow[]> {
+  return queryRows<SprayedBlockRow>(sequelize, blocksSql, { bind: { farmId, blockIds }, transaction });
+}
+
+export async function searchExposures(sequelize: Sequelize, scope: SearchScope, transaction?: Tx): Promise<ExposureRow[]> {
+  const rows = await queryRows<ExposureRow>(sequelize, exposureSql, { bind: searchBind(scope), transaction });
+  return rows.map((r) => ({ ...r, distance_m: Number(r.distance_m), colonies: Number(r.colonies), notice_hours: Number(r.notice_hours) }));
+}
+
+export async function searchBloom(sequelize: Sequelize, scope: SearchScope, transaction?: Tx): Promise<boolean> {
+  const { exposureTo, farmId, blockIds, from } = searchBind(scope);
+  const row = await queryOne<{ during_bloom: boolean }>(sequelize, bloomSql, { bind: { exposureTo, farmId, blockIds, from }, transaction });
+  return Boolean(row?.during_bloom);
+}
+
+/** Sprays not cancelled and not yet over that cover one of these blocks (a bloom window changed). */
+export async function spraysOnBlocks(sequelize: Sequelize, blockIds: string[], now: Date, transaction?: Tx): Promise<string[]> {
+  const rows = await queryRows<{ id: string }>(
+    sequelize,
+    `SELECT DISTINCT s.id FROM spray_plans s JOIN spray_plan_blocks sb ON sb.spray_plan_id = s.id
+     WHERE sb.block_id = ANY($blockIds::uuid[]) AND s.state <> 'cancelled' AND upper(s.exposure_window) > $now`,
+    { bind: { blockIds, now }, transaction },
+  );
+  return rows.map((r) => r.id);
+}
+
+/**
+ * Sprays that may touch an agreement's colonies (a placement or the agreement changed):
+ * sprays whose blocks lie within their farm's buffer of the agreement's drop sites, and
+ * sprays that already have an open alert for its apiary business.
+ */
+export async function spraysNearAgreement(sequelize: Sequelize, agreementId: string, now: Date, transaction?: Tx): Promise<string[]> {
+  const rows = await queryRows<{ id: string }>(
+    sequelize,
+    `SELECT s.id FROM agreements a
+       JOIN drop_sites d ON d.request_id = a.request_id
+       JOIN spray_plans s ON s.state <> 'cancelled' AND upper(s.exposure_window) > $now
+       JOIN organizations o ON o.id = s.farm_id
+       JOIN spray_plan_blocks sb ON sb.spray_plan_id = s.id
+       JOIN blocks b ON b.id = sb.block_id
+     WHERE a.id = $agreementId AND ST_DWithin(d.location::geography, coalesce(b.outline, b.location)::geography, o.spray_buffer_m)
+     UNION
+     SELECT al.spray_plan_id FROM agreements a JOIN alerts al ON al.apiary_id = a.apiary_id AND al.state <> 'resolved' WHERE a.id = $agreementId`,
+    { bind: { agreementId, now }, transaction },
+  );
+  return rows.map((r) => r.id);
+}

@@ -1,0 +1,68 @@
+// A TCP proxy a test puts between a server and PostgreSQL, to take the database away: cut()
+// drops every connection and refuses new ones for a while; cutOn(pattern) does so the
+// moment a client sends a matching statement (e.g. in the middle of a save's transaction).
+import { connect, createServer, type Socket } from 'node:net';
+
+export interface TcpProxy {
+  port: number;
+  /** Drops every connection and refuses new ones for `ms`. */
+  cut(ms: number): void;
+  /** Cuts for `ms` as soon as a client sends bytes matching `pattern`; resolves when it did. */
+  cutOn(pattern: RegExp, ms: number): Promise<void>;
+  /** Whether connections are being refused now. */
+  readonly down: boolean;
+  close(): Promise<void>;
+}
+
+export async function startTcpProxy(target: { host: string; port: number }): Promise<TcpProxy> {
+  const open = new Set<Socket>();
+  let downUntil = 0;
+  let trigger: { pattern: RegExp; ms: number; fired: () => void } | null = null;
+  const isDown = () => Date.now() < downUntil;
+
+  const cut = (ms: number) => {
+    downUntil = Date.now() + ms;
+    for (const s of open) s.destroy();
+    open.clear();
+  };
+
+  const server = createServer((client) => {
+    if (isDown()) return void client.destroy();
+    const upstream = connect(target.port, target.host);
+    open.add(client);
+    open.add(upstream);
+    const end = () => {
+      client.destroy();
+      upstream.destroy();
+      open.delete(client);
+      open.delete(upstream);
+    };
+    client.on('data', (chunk) => {
+      if (trigger && trigger.pattern.test(chunk.toString('latin1'))) {
+        const { ms, fired } = trigger;
+        trigger = null;
+        cut(ms);
+        fired();
+        return;
+      }
+      upstream.write(chunk);
+    });
+    upstream.on('data', (chunk) => client.write(chunk));
+    for (const s of [client, upstream]) {
+      s.on('close', end);
+      s.on('error', end);
+    }
+  });
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const { port } = server.address() as { port: number };
+  return {
+    port,
+    cut,
+    cutOn: (pattern, ms) => new Promise<void>((fired) => (trigger = { pattern, ms, fired })),
+    get down() { return isDown(); },
+    async close() {
+      for (const s of open) s.destroy();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+    },
+  };
+}
