@@ -50,7 +50,11 @@ export function defineBlock(sequelize: Sequelize): typeof Block {
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, modelName: 'Block', tableName: 'blocks', underscored: true },
+    {
+      sequelize, modelName: 'Block', tableName: 'blocks', underscored: true,
+      // Block.scope({ method: ['ofFarm', farmId] }): only that farm's blocks (another farm's are "not found").
+      scopes: { ofFarm: (farmId: string) => ({ where: { farmId } }) },
+    },
   );
   return Block;
 }

@@ -23,7 +23,11 @@ export function defineWeatherStation(sequelize: Sequelize): typeof WeatherStatio
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, modelName: 'WeatherStation', tableName: 'weather_stations', underscored: true },
+    {
+      sequelize, modelName: 'WeatherStation', tableName: 'weather_stations', underscored: true,
+      // WeatherStation.scope({ method: ['ofFarm', farmId] }): only that farm's stations.
+      scopes: { ofFarm: (farmId: string) => ({ where: { farmId } }) },
+    },
   );
   return WeatherStation;
 }

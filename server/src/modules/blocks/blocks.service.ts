@@ -22,6 +22,7 @@ export function createBlocksService(ctx: AppContext) {
   const { sequelize } = ctx;
   const { Block, BloomWindow, User, WeatherStation } = ctx.models;
   const withStation = [{ model: WeatherStation, as: 'weatherStation', attributes: ['name'] }];
+  const blocksOf = (farmId: string) => Block.scope({ method: ['ofFarm', farmId] });
 
   /**
    * Outline, location, entered acreage and area are written together so they always agree:
@@ -43,7 +44,7 @@ export function createBlocksService(ctx: AppContext) {
 
   async function checkStation(farmId: string, stationId: string | null | undefined) {
     if (!stationId) return;
-    if (!(await WeatherStation.count({ where: { id: stationId, farmId } }))) {
+    if (!(await WeatherStation.scope({ method: ['ofFarm', farmId] }).count({ where: { id: stationId } }))) {
       throw badRequest('That weather station is not one of your farm\'s.', { weatherStationId: 'is not one of your farm\'s stations' });
     }
   }
@@ -69,7 +70,7 @@ export function createBlocksService(ctx: AppContext) {
   }
 
   async function find(farmId: string, id: string): Promise<Block> {
-    const block = await Block.findOne({ where: { id, farmId }, include: withStation });
+    const block = await blocksOf(farmId).findOne({ where: { id }, include: withStation });
     if (!block) throw notFound('That block');
     return block;
   }
@@ -81,7 +82,7 @@ export function createBlocksService(ctx: AppContext) {
 
   return {
     async list(farmId: string): Promise<BlockDto[]> {
-      return toDtos(await Block.findAll({ where: { farmId }, include: withStation, order: [['name', 'ASC']] }));
+      return toDtos(await blocksOf(farmId).findAll({ include: withStation, order: [['name', 'ASC']] }));
     },
 
     get,

@@ -31,6 +31,7 @@ function checkBounds(field: string, c: number) {
 export function createStationsService(ctx: AppContext) {
   const { sequelize } = ctx;
   const { WeatherStation, DailyTemperature, ForecastLow } = ctx.models;
+  const stationsOf = (farmId: string) => WeatherStation.scope({ method: ['ofFarm', farmId] });
   const nameTaken = () => conflict('Your farm already has a station with that name.', { name: 'is already used by another station' });
 
   /** How many days each station has recorded, and its first and last. */
@@ -46,7 +47,7 @@ export function createStationsService(ctx: AppContext) {
   }
 
   async function find(farmId: string, id: string): Promise<WeatherStation> {
-    const station = await WeatherStation.findOne({ where: { id, farmId } });
+    const station = await stationsOf(farmId).findOne({ where: { id } });
     if (!station) throw notFound('That weather station');
     return station;
   }
@@ -79,7 +80,7 @@ export function createStationsService(ctx: AppContext) {
     get,
 
     async list(farmId: string): Promise<StationDto[]> {
-      const stations = await WeatherStation.findAll({ where: { farmId }, order: [['name', 'ASC']] });
+      const stations = await stationsOf(farmId).findAll({ order: [['name', 'ASC']] });
       const days = await daysOf(stations.map((s) => s.id));
       return stations.map((s) => toDto(s, days.get(s.id)));
     },
