@@ -22,5 +22,6 @@ export type ErrorCode = (typeof errorCodes)[number];
 export type FieldErrors = Record<string, string>;
 
 export interface ErrorBody {
-  error: { code: ErrorCode; message: string; fields?: FieldErrors };
+  /** recorded: on a 409 for a field step already taken, what the server already records. */
+  error: { code: ErrorCode; message: string; fields?: FieldErrors; recorded?: unknown };
 }

@@ -10,9 +10,11 @@ import App from './App.vue';
 import { install as installPinia } from './plugins/pinia';
 import { install as installPrimeVue } from './plugins/primevue';
 import { router } from './router';
+import { startFieldWork } from './offline/start-field-work';
 
 const app = createApp(App);
 installPinia(app);
 installPrimeVue(app);
 app.use(router);
+startFieldWork();
 app.mount('#app');

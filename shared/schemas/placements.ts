@@ -18,6 +18,8 @@ export const deliveryBody = z.object({
   coloniesDelivered: count,
   deliveredAt: isoDateTimeSchema.optional(),
   location: pointSchema.nullable().optional(),
+  /** How far off the phone's position may be, in metres (as the phone reports it). */
+  accuracyM: z.number('must be a number').min(0, 'must be zero or more').max(100_000).nullable().optional(),
 });
 export type DeliveryBody = z.input<typeof deliveryBody>;
 
@@ -45,7 +47,7 @@ export const disputeBody = z.object({
 export type DisputeBody = z.input<typeof disputeBody>;
 
 export const photoParams = z.object({ id: z.uuid('must be a valid id'), photoId: z.uuid('must be a valid id') });
-export const photoStepBody = z.object({ step: z.enum(['delivery', 'strength-check', 'pickup']).default('delivery') });
+export const photoStepBody = z.object({ step: z.enum(['delivery', 'strength-check', 'pickup']).default('delivery'), recordedAt: isoDateTimeSchema.optional() });
 
 export interface StrengthCheckDto {
   id: string;
@@ -56,6 +58,8 @@ export interface StrengthCheckDto {
   framesOfBees: number[];
   framesOfBrood: number[] | null;
   notes: string | null;
+  /** When the check reached the server (checkedAt is when it was recorded in the field). */
+  receivedAt?: string | null;
   summary: StrengthSummary;
 }
 
@@ -76,10 +80,16 @@ export interface PlacementDto {
   deliveredAt: string | null;
   deliveredLocation: GeoPoint | null;
   deliveredByName: string | null;
+  /** The phone's own times beside the server's: a record sent late shows both. */
+  deliveredRecordedAt?: string | null;
+  deliveredReceivedAt?: string | null;
+  deliveredAccuracyM?: number | null;
   coloniesPickedUp: number | null;
   pickedUpAt: string | null;
   pickedUpByName: string | null;
+  pickedUpRecordedAt?: string | null;
+  pickedUpReceivedAt?: string | null;
   dispute: { step: 'delivery' | 'pickup' | null; countedColonies: number | null; note: string; byName: string | null; at: string } | null;
   strengthChecks: StrengthCheckDto[];
-  photos: Array<{ id: string; step: string; url: string; at: string }>;
+  photos: Array<{ id: string; step: string; url: string; at: string; recordedAt?: string | null }>;
 }

@@ -5,7 +5,8 @@ import { clientConfig } from '@/config';
 import type { ErrorBody, ErrorCode, FieldErrors } from '@shared/errors';
 
 export class ApiError extends Error {
-  constructor(readonly status: number, readonly code: ErrorCode, message: string, readonly fields: FieldErrors = {}) {
+  /** recorded: on a 409 for a field step already taken, what the server already records. */
+  constructor(readonly status: number, readonly code: ErrorCode, message: string, readonly fields: FieldErrors = {}, readonly recorded?: unknown) {
     super(message);
   }
 }
@@ -35,6 +36,8 @@ export interface RequestOptions {
   /** Don't redirect to sign-in on 401 (the session check itself). */
   quiet401?: boolean;
   signal?: AbortSignal;
+  /** Extra request headers (e.g. Idempotency-Key on field records). */
+  headers?: Record<string, string>;
 }
 
 function urlFor(path: string, query?: RequestOptions['query']) {
@@ -44,7 +47,7 @@ function urlFor(path: string, query?: RequestOptions['query']) {
 }
 
 export async function request<T>(method: Method, path: string, options: RequestOptions = {}, retried = false): Promise<T> {
-  const headers: Record<string, string> = { Accept: 'application/json' };
+  const headers: Record<string, string> = { Accept: 'application/json', ...options.headers };
   const isForm = options.body instanceof FormData;
   if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
   if (method !== 'GET') headers['X-CSRF-Token'] = csrfToken ?? (await fetchCsrfToken());
@@ -67,7 +70,7 @@ export async function request<T>(method: Method, path: string, options: RequestO
     return request<T>(method, path, options, true);
   }
   if (res.status === 401 && !options.quiet401) onUnauthenticated?.();
-  throw new ApiError(res.status, error.code, error.message, error.fields ?? {});
+  throw new ApiError(res.status, error.code, error.message, error.fields ?? {}, error.recorded);
 }
 
 export const http = {

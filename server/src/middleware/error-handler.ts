@@ -3,6 +3,7 @@
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { AppError } from '../errors/create-error.js';
+import { AlreadyRecordedError } from '../errors/already-recorded.js';
 import { databaseRetryAfterSeconds, databaseUnavailable, isDatabaseUnavailable } from '../errors/database-unavailable.js';
 import { fieldErrorsOf } from './validate.js';
 import type { ErrorBody } from '../../../shared/errors.js';
@@ -31,7 +32,7 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const status = appError?.status ?? 500;
   const body: ErrorBody = {
     error: appError
-      ? { code: appError.code, message: appError.message, ...(appError.fields ? { fields: appError.fields } : {}) }
+      ? { code: appError.code, message: appError.message, ...(appError.fields ? { fields: appError.fields } : {}), ...(appError instanceof AlreadyRecordedError ? { recorded: appError.recorded } : {}) }
       : { code: 'internal', message: 'Something went wrong on our side. Please try again.' },
   };
   if (res.headersSent) return;

@@ -79,5 +79,3 @@ export function createAlertsService(ctx: AppContext) {
     },
   };
 }
-
-export type AlertsService = ReturnType<typeof createAlertsService>;

@@ -11,14 +11,10 @@ import { createPaymentsService } from './payments.service.js';
 import { createPaymentsController } from './payments.controller.js';
 import { createInvoicesService } from '../invoices/invoices.service.js';
 import { createInvoiceReportsService } from '../invoices/invoice-reports.service.js';
-import { createPaymentEventsService } from './payment-events.service.js';
-
-function controllerFor(ctx: AppContext) {
-  return createPaymentsController(ctx, createPaymentsService(ctx), createPaymentEventsService(ctx), createInvoicesService(ctx), createInvoiceReportsService(ctx));
-}
+import { paymentsWebhookHandler } from './payments-webhook.js';
 
 export function paymentsRoutes(ctx: AppContext): Router {
-  const c = controllerFor(ctx);
+  const c = createPaymentsController(createPaymentsService(ctx), createInvoicesService(ctx), createInvoiceReportsService(ctx));
   const router = Router();
   router.post('/checkout', allow(policy, 'payOnline'), validate({ body: checkoutSchema }), c.checkout);
   router.post('/', allow(policy, 'recordManual'), validate({ body: manualPaymentSchema }), c.recordManual);
@@ -29,8 +25,7 @@ export function paymentsRoutes(ctx: AppContext): Router {
 
 /** Mounted under /api/webhooks before the JSON parser: the signature is checked on the raw body. */
 export function paymentsWebhookRoutes(ctx: AppContext): Router {
-  const c = controllerFor(ctx);
   const router = Router();
-  router.post('/payments', raw({ type: 'application/json', limit: '1mb' }), c.webhook);
+  router.post('/payments', raw({ type: 'application/json', limit: '1mb' }), paymentsWebhookHandler(ctx));
   return router;
 }

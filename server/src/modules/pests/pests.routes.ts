@@ -3,7 +3,7 @@ import { Router } from 'express';
 import type { AppContext } from '../../context.js';
 import { allow, currentUser } from '../../middleware/authenticate.js';
 import { validate } from '../../middleware/validate.js';
-import { pestBlockQuery, pestTimingQuery, trapCountInputSchema } from '../../../../shared/schemas/pests.js';
+import { pestBlockQuery, trapCountInputSchema } from '../../../../shared/schemas/pests.js';
 import { pestsPolicy } from './pests.policy.js';
 import { createPestsService } from './pests.service.js';
 
@@ -20,9 +20,9 @@ export function pestsRoutes(ctx: AppContext): Router {
   router.post('/trap-counts', allow(pestsPolicy, 'record'), validate({ body: trapCountInputSchema }), async (req, res) => {
     res.status(201).json({ trapCount: await service.record(currentUser(req), req.body) });
   });
-  router.get('/timing', allow(pestsPolicy, 'list'), validate({ query: pestTimingQuery }), async (req, res) => {
-    const query = req.query as unknown as { blockId: string; pestModelId: string; season?: number };
-    res.json({ timing: await service.timing(currentUser(req), query.blockId, query.pestModelId, query.season) });
+  router.get('/timing', allow(pestsPolicy, 'list'), validate({ query: pestBlockQuery }), async (req, res) => {
+    const query = req.query as unknown as { blockId: string; pestModelId: string };
+    res.json({ timing: await service.timing(currentUser(req), query.blockId, query.pestModelId) });
   });
   return router;
 }

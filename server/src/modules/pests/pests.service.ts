@@ -1,16 +1,13 @@
-// Trap counts per block and the pest timing they give with the block's weather station, one
-// season of the farm at a time, with the days a cover spray fits best marked against bloom
-// and colonies on site.
+// Trap counts per block and the pest timing they give with the block's weather station.
 import { QueryTypes } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
 import { badRequest, notFound } from '../../errors/http-errors.js';
-import { pestTiming, seasonDays, seasonOf } from '../../../../shared/domain/pest-timing.js';
-import { suggestCoverSprayDays, sprayWindowCaution } from '../../../../shared/domain/spray-windows.js';
-import { loadSeasonTemperatures } from '../weather/season-temperatures.js';
-import { sprayDayContext } from './pests.queries.js';
+import { pestTiming } from '../../../../shared/domain/pest-timing.js';
 import type { PestModelDto, PestTimingDto, TrapCountDto, TrapCountInput } from '../../../../shared/schemas/pests.js';
 import { PestModel } from '../../db/models/pest-model.model.js';
+
+const cToF = (c: number) => (c * 9) / 5 + 32;
 
 export function createPestsService(ctx: AppContext) {
   const q = <T extends object>(sql: string, replacements: Record<string, unknown>) => ctx.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
@@ -58,25 +55,22 @@ export function createPestsService(ctx: AppContext) {
       return row;
     },
 
-    /** Timing in one season of the farm (its calendar year in its time zone; this season unless asked), with suggested cover-spray days. */
-    async timing(user: AuthUser, blockId: string, pestModelId: string, askedSeason?: number): Promise<PestTimingDto> {
+    async timing(user: AuthUser, blockId: string, pestModelId: string): Promise<PestTimingDto> {
       const block = await requireBlock(user, blockId);
       const model = await requireModel(pestModelId);
-      const farm = await ctx.models.Organization.findByPk(user.organizationId!, { attributes: ['timeZone'] });
-      const timeZone = farm?.timeZone ?? 'UTC';
-      const season = askedSeason ?? seasonOf(ctx.now(), timeZone);
-      const allChecks = (await counts(blockId, pestModelId)).map((c) => ({ day: c.checkedOn, moths: c.moths }));
-      const { from, to } = seasonDays(season);
-      const temperatures = block.weather_station_id ? await loadSeasonTemperatures(ctx, block.weather_station_id, from, to) : null;
+      const checks = (await counts(blockId, pestModelId)).map((c) => ({ day: c.checkedOn, moths: c.moths }));
+      const days = block.weather_station_id
+        ? await q<{ day: string; tmin_c: number; tmax_c: number }>(
+            `SELECT to_char(day, 'YYYY-MM-DD') AS day, tmin_c, tmax_c FROM daily_temperatures WHERE station_id = :stationId ORDER BY day`,
+            { stationId: block.weather_station_id },
+          )
+        : [];
       const timing = pestTiming(
         { lowerThresholdF: model.lowerThresholdF, upperThresholdF: model.upperThresholdF, method: 'single-sine', stages: model.stages },
-        allChecks,
-        temperatures?.days ?? [],
-        season,
+        checks,
+        days.map((d) => ({ day: d.day, tmin: cToF(Number(d.tmin_c)), tmax: cToF(Number(d.tmax_c)) })),
       );
-      const seasons = [...new Set([season, ...allChecks.map((c) => Number(c.day.slice(0, 4)))])].sort((a, b) => b - a);
-      const suggestedSprayDays = suggestCoverSprayDays(timing, await sprayDayContext(ctx.sequelize, blockId, timeZone, season));
-      return { ...timing, pestModelId, blockId, hasWeather: Boolean(temperatures?.lastObserved), seasons, suggestedSprayDays, sprayWindowCaution };
+      return { ...timing, pestModelId, blockId, hasWeather: days.length > 0 };
     },
   };
 }

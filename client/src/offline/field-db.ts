@@ -1,0 +1,40 @@
+// The phone's outbox for field records, in IndexedDB through Dexie: deliveries, strength
+// checks, pickups and photos recorded without signal survive a reload, a closed tab and a
+// restarted phone until the server has them. Photos are kept as Blobs beside their record.
+import Dexie, { type EntityTable } from 'dexie';
+import type { GeoPoint } from '@shared/schemas/common';
+import type { DeliveryBody, PickupBody, StrengthCheckBody } from '@shared/schemas/placements';
+
+export type FieldRecordKind = 'delivery' | 'strength-check' | 'pickup' | 'photo';
+/** waiting: not sent yet (or to be sent again); sending: on its way; sent: the server has it; rejected: the server refused it. */
+export type FieldRecordState = 'waiting' | 'sending' | 'sent' | 'rejected';
+export type PhotoStep = 'delivery' | 'strength-check' | 'pickup';
+
+export interface FieldRecord {
+  /** Order of recording: records are sent in this order. */
+  seq?: number;
+  /** The phone's Idempotency-Key for this record; the same on every attempt. */
+  key: string;
+  userId: string;
+  placementId: string;
+  /** For the outbox list: which drop site. */
+  siteName: string;
+  kind: FieldRecordKind;
+  delivery?: DeliveryBody;
+  strengthCheck?: StrengthCheckBody;
+  pickup?: PickupBody;
+  photo?: Blob;
+  photoStep?: PhotoStep;
+  /** When the crew recorded it, by the phone's clock (ISO). */
+  recordedAt: string;
+  position?: GeoPoint | null;
+  accuracyM?: number | null;
+  state: FieldRecordState;
+  attempts: number;
+  /** Why the server refused it (rejected), in words. */
+  error?: string | null;
+  sentAt?: string | null;
+}
+
+export const fieldDb = new Dexie('pollenpact-field') as Dexie & { records: EntityTable<FieldRecord, 'seq'> };
+fieldDb.version(1).stores({ records: '++seq, &key, [userId+state], placementId, state' });
