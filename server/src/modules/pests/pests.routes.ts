@@ -1,28 +1,19 @@
 // /api/pests: pest models (sourced data), a block's trap counts and its pest timing.
 import { Router } from 'express';
 import type { AppContext } from '../../context.js';
-import { allow, currentUser } from '../../middleware/authenticate.js';
+import { allow } from '../../middleware/authenticate.js';
 import { validate } from '../../middleware/validate.js';
-import { pestBlockQuery, trapCountInputSchema } from '../../../../shared/schemas/pests.js';
-import { pestsPolicy } from './pests.policy.js';
+import { pestBlockQuery, pestTimingQuery, trapCountInputSchema } from '../../../../shared/schemas/pests.js';
+import { pestsPolicy as policy } from './pests.policy.js';
 import { createPestsService } from './pests.service.js';
+import { createPestsController } from './pests.controller.js';
 
 export function pestsRoutes(ctx: AppContext): Router {
-  const service = createPestsService(ctx);
+  const c = createPestsController(createPestsService(ctx));
   const router = Router();
-  router.get('/models', allow(pestsPolicy, 'list'), async (_req, res) => {
-    res.json({ models: await service.models() });
-  });
-  router.get('/trap-counts', allow(pestsPolicy, 'list'), validate({ query: pestBlockQuery }), async (req, res) => {
-    const query = req.query as unknown as { blockId: string; pestModelId: string };
-    res.json({ trapCounts: await service.listCounts(currentUser(req), query.blockId, query.pestModelId) });
-  });
-  router.post('/trap-counts', allow(pestsPolicy, 'record'), validate({ body: trapCountInputSchema }), async (req, res) => {
-    res.status(201).json({ trapCount: await service.record(currentUser(req), req.body) });
-  });
-  router.get('/timing', allow(pestsPolicy, 'list'), validate({ query: pestBlockQuery }), async (req, res) => {
-    const query = req.query as unknown as { blockId: string; pestModelId: string };
-    res.json({ timing: await service.timing(currentUser(req), query.blockId, query.pestModelId) });
-  });
+  router.get('/models', allow(policy, 'list'), c.models);
+  router.get('/trap-counts', allow(policy, 'list'), validate({ query: pestBlockQuery }), c.trapCounts);
+  router.post('/trap-counts', allow(policy, 'record'), validate({ body: trapCountInputSchema }), c.recordTrapCount);
+  router.get('/timing', allow(policy, 'list'), validate({ query: pestTimingQuery }), c.timing);
   return router;
 }

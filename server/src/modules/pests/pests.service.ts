@@ -1,41 +1,46 @@
-// Trap counts per block and the pest timing they give with the block's weather station.
-import { QueryTypes } from 'sequelize';
+// Trap counts per block and the pest timing they give with the block's weather station, one
+// season of the farm at a time, with the days a cover spray fits best marked against bloom
+// and colonies on site.
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
 import { badRequest, notFound } from '../../errors/http-errors.js';
-import { pestTiming } from '../../../../shared/domain/pest-timing.js';
+import { pestTiming, seasonDays, seasonOf } from '../../../../shared/domain/pest-timing.js';
+import { suggestCoverSprayDays, sprayWindowCaution } from '../../../../shared/domain/spray-windows.js';
+import { loadSeasonTemperatures } from '../weather/season-temperatures.js';
+import { sprayDayContext } from './pests.queries.js';
 import type { PestModelDto, PestTimingDto, TrapCountDto, TrapCountInput } from '../../../../shared/schemas/pests.js';
-import { PestModel } from '../../db/models/pest-model.model.js';
+import type { PestModel } from '../../db/models/pest-model.model.js';
+import type { PestTrapCount } from '../../db/models/pest-trap-count.model.js';
 
-const cToF = (c: number) => (c * 9) / 5 + 32;
+const toPestModelDto = (m: PestModel): PestModelDto => ({
+  id: m.id, name: m.name, lowerThresholdF: m.lowerThresholdF, upperThresholdF: m.upperThresholdF, method: m.method, cutoff: m.cutoff,
+  biofixRule: m.biofixRule, stages: m.stages, source: m.source,
+});
+const toTrapCountDto = (c: PestTrapCount): TrapCountDto => ({ id: c.id, blockId: c.blockId, pestModelId: c.pestModelId, checkedOn: c.checkedOn, moths: c.moths });
 
 export function createPestsService(ctx: AppContext) {
-  const q = <T extends object>(sql: string, replacements: Record<string, unknown>) => ctx.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+  const { Block, PestModel, PestTrapCount } = ctx.models;
 
   async function requireBlock(user: AuthUser, blockId: string, field?: string) {
-    const [row] = await q<{ id: string; weather_station_id: string | null }>(
-      'SELECT id, weather_station_id FROM blocks WHERE id = :blockId AND farm_id = :farmId', { blockId, farmId: user.organizationId },
-    );
-    if (!row) throw field ? badRequest(`Please check: ${field}.`, { [field]: 'must be one of your farm\'s blocks' }) : notFound('That block');
-    return row;
+    const block = await Block.findOne({ attributes: ['id', 'weatherStationId'], where: { id: blockId, farmId: user.organizationId! } });
+    if (!block) throw field ? badRequest(`Please check: ${field}.`, { [field]: 'must be one of your farm\'s blocks' }) : notFound('That block');
+    return block;
   }
 
   async function requireModel(id: string): Promise<PestModelDto> {
     const model = await PestModel.findByPk(id);
     if (!model) throw badRequest('Please check: pestModelId.', { pestModelId: 'is not a known pest model' });
-    return model.get({ plain: true });
+    return toPestModelDto(model);
   }
 
   async function counts(blockId: string, pestModelId: string): Promise<TrapCountDto[]> {
-    return q<TrapCountDto>(
-      `SELECT id, block_id AS "blockId", pest_model_id AS "pestModelId", to_char(checked_on, 'YYYY-MM-DD') AS "checkedOn", moths
-       FROM pest_trap_counts WHERE block_id = :blockId AND pest_model_id = :pestModelId ORDER BY checked_on`, { blockId, pestModelId },
-    );
+    const rows = await PestTrapCount.findAll({ where: { blockId, pestModelId }, order: [['checkedOn', 'ASC']] });
+    return rows.map(toTrapCountDto);
   }
 
   return {
     async models(): Promise<PestModelDto[]> {
-      return (await PestModel.findAll({ order: [['name', 'ASC']] })).map((m) => m.get({ plain: true }));
+      return (await PestModel.findAll({ order: [['name', 'ASC']] })).map(toPestModelDto);
     },
 
     async listCounts(user: AuthUser, blockId: string, pestModelId: string) {
@@ -43,34 +48,38 @@ export function createPestsService(ctx: AppContext) {
       return counts(blockId, pestModelId);
     },
 
+    /** A second count for the same block, pest and day replaces the first (one trap check a day). */
     async record(user: AuthUser, input: TrapCountInput): Promise<TrapCountDto> {
       await requireBlock(user, input.blockId, 'blockId');
       await requireModel(input.pestModelId);
-      const [row] = await q<TrapCountDto>(
-        `INSERT INTO pest_trap_counts (block_id, pest_model_id, checked_on, moths, recorded_by) VALUES (:blockId, :pestModelId, :checkedOn, :moths, :userId)
-         ON CONFLICT (block_id, pest_model_id, checked_on) DO UPDATE SET moths = EXCLUDED.moths, recorded_by = EXCLUDED.recorded_by
-         RETURNING id, block_id AS "blockId", pest_model_id AS "pestModelId", to_char(checked_on, 'YYYY-MM-DD') AS "checkedOn", moths`,
-        { ...input, userId: user.id },
+      const [row] = await PestTrapCount.bulkCreate(
+        [{ blockId: input.blockId, pestModelId: input.pestModelId, checkedOn: input.checkedOn, moths: input.moths, recordedBy: user.id }],
+        { updateOnDuplicate: ['moths', 'recordedBy'], conflictAttributes: ['blockId', 'pestModelId', 'checkedOn'], returning: true },
       );
-      return row;
+      return toTrapCountDto(row);
     },
 
-    async timing(user: AuthUser, blockId: string, pestModelId: string): Promise<PestTimingDto> {
+    /** Timing in one season of the farm (its calendar year in its time zone; this season unless asked), with suggested cover-spray days. */
+    async timing(user: AuthUser, blockId: string, pestModelId: string, askedSeason?: number): Promise<PestTimingDto> {
       const block = await requireBlock(user, blockId);
       const model = await requireModel(pestModelId);
-      const checks = (await counts(blockId, pestModelId)).map((c) => ({ day: c.checkedOn, moths: c.moths }));
-      const days = block.weather_station_id
-        ? await q<{ day: string; tmin_c: number; tmax_c: number }>(
-            `SELECT to_char(day, 'YYYY-MM-DD') AS day, tmin_c, tmax_c FROM daily_temperatures WHERE station_id = :stationId ORDER BY day`,
-            { stationId: block.weather_station_id },
-          )
-        : [];
+      const farm = await ctx.models.Organization.findByPk(user.organizationId!, { attributes: ['timeZone'] });
+      const timeZone = farm?.timeZone ?? 'UTC';
+      const season = askedSeason ?? seasonOf(ctx.now(), timeZone);
+      const allChecks = (await counts(blockId, pestModelId)).map((c) => ({ day: c.checkedOn, moths: c.moths }));
+      const { from, to } = seasonDays(season);
+      const temperatures = block.weatherStationId ? await loadSeasonTemperatures(ctx, block.weatherStationId, from, to) : null;
       const timing = pestTiming(
         { lowerThresholdF: model.lowerThresholdF, upperThresholdF: model.upperThresholdF, method: 'single-sine', stages: model.stages },
-        checks,
-        days.map((d) => ({ day: d.day, tmin: cToF(Number(d.tmin_c)), tmax: cToF(Number(d.tmax_c)) })),
+        allChecks,
+        temperatures?.days ?? [],
+        season,
       );
-      return { ...timing, pestModelId, blockId, hasWeather: days.length > 0 };
+      const seasons = [...new Set([season, ...allChecks.map((c) => Number(c.day.slice(0, 4)))])].sort((a, b) => b - a);
+      const suggestedSprayDays = suggestCoverSprayDays(timing, await sprayDayContext(ctx.sequelize, blockId, timeZone, season));
+      return { ...timing, pestModelId, blockId, hasWeather: Boolean(temperatures?.lastObserved), seasons, suggestedSprayDays, sprayWindowCaution };
     },
   };
 }
+
+export type PestsService = ReturnType<typeof createPestsService>;
