@@ -3,7 +3,9 @@
 // Extension; UF/IFAS EDIS "Sample Pollination Agreement" 2015; SARE "Managing Alternative
 // Pollinators"): fees and due dates, dates and notice, number and strength of colonies,
 // placement and access, inspection, pesticide assurances and notice, water, liability,
-// extra moves and entry.
+// extra moves and entry. The fee, extra-move and strength-shortfall wording comes from
+// agreement-billing.ts, which also computes what the invoice charges for them.
+import { extraMovesClauseText, feeClauseText, shortfallClauseText } from './agreement-billing.js';
 
 export interface AgreementClause {
   key: string;
@@ -26,9 +28,6 @@ export interface ClauseTerms {
   removalNoticeHours: number;
 }
 
-const money = (cents: number, currency: string) => `${(cents / 100).toFixed(2)} ${currency}`;
-const percent = (bp: number) => `${(bp / 100).toLocaleString('en-US', { maximumFractionDigits: 2 })}%`;
-
 export function agreementClauses(t: ClauseTerms): AgreementClause[] {
   const brood = t.minFramesOfBrood != null ? ` and at least ${t.minFramesOfBrood} frames of brood` : '';
   const clauses: AgreementClause[] = [
@@ -45,7 +44,7 @@ export function agreementClauses(t: ClauseTerms): AgreementClause[] {
     {
       key: 'fee',
       title: 'Fee and payment',
-      text: `The fee is ${money(t.pricePerColonyCents, t.currency)} per colony set down. ${percent(t.depositShareBp)} of the fee is due at delivery and the balance within ${t.balanceDueDays} days of pickup. Unpaid amounts carry interest of ${percent(t.lateInterestBpPerMonth)} per month after their due date.`,
+      text: feeClauseText(t),
     },
     {
       key: 'pesticides',
@@ -70,10 +69,7 @@ export function agreementClauses(t: ClauseTerms): AgreementClause[] {
     {
       key: 'extra-moves',
       title: 'Extra moves',
-      text:
-        t.extraMoveFeeCents > 0
-          ? `Each move the grower asks for beyond delivery and pickup costs ${money(t.extraMoveFeeCents, t.currency)} per colony moved.`
-          : 'Moves the grower asks for beyond delivery and pickup are agreed and priced between the two sides before they are made.',
+      text: extraMovesClauseText(t),
     },
     {
       key: 'liability',
@@ -90,7 +86,7 @@ export function agreementClauses(t: ClauseTerms): AgreementClause[] {
     clauses.splice(3, 0, {
       key: 'below-minimum',
       title: 'Colonies below strength',
-      text: `A group that does not meet the agreed strength is paid at ${percent(t.belowMinimumRateBp)} of the fee for the colonies found short.`,
+      text: shortfallClauseText(t),
     });
   }
   return clauses;

@@ -40,9 +40,20 @@ export function beeFlightWindow(date: Date, lat: number, lon: number, settings: 
   return null;
 }
 
-/** The part of [start, end) during which bees fly, summed over every day it touches, in hours. */
+function assertPlace(lat: number, lon: number) {
+  if (!Number.isFinite(lat) || lat < -90 || lat > 90) throw new RangeError('latitude must be a number from -90 to 90');
+  if (!Number.isFinite(lon) || lon < -180 || lon > 180) throw new RangeError('longitude must be a number from -180 to 180');
+}
+
+/**
+ * The part of [start, end) during which bees fly, in hours. Each solar day's window is
+ * clipped to the span and overlapping windows are merged first: in high-latitude summers
+ * one day's window runs into the next, and no hour may count twice.
+ */
 export function hoursDuringBeeFlight(start: Date, end: Date, lat: number, lon: number, settings: BeeFlightSettings = defaultBeeFlight): number {
-  let overlapMs = 0;
+  assertPlace(lat, lon);
+  if (!Number.isFinite(start.getTime()) || !Number.isFinite(end.getTime())) throw new RangeError('start and end must be valid times');
+  const clipped: Array<[number, number]> = [];
   // Solar noon is near 12:00 - lon/15 h UTC; step one day at a time from the day before.
   const firstNoon = Date.UTC(start.getUTCFullYear(), start.getUTCMonth(), start.getUTCDate(), 12) - (lon / 15) * HOUR_MS - DAY_MS;
   for (let noon = firstNoon; noon < end.getTime() + DAY_MS; noon += DAY_MS) {
@@ -50,7 +61,15 @@ export function hoursDuringBeeFlight(start: Date, end: Date, lat: number, lon: n
     if (!window) continue;
     const from = Math.max(window.from.getTime(), start.getTime());
     const to = Math.min(window.to.getTime(), end.getTime());
-    if (to > from) overlapMs += to - from;
+    if (to > from) clipped.push([from, to]);
+  }
+  clipped.sort((a, b) => a[0] - b[0]);
+  let overlapMs = 0;
+  let reached = -Infinity;
+  for (const [from, to] of clipped) {
+    const begin = Math.max(from, reached);
+    if (to > begin) overlapMs += to - begin;
+    reached = Math.max(reached, to);
   }
   return overlapMs / HOUR_MS;
 }

@@ -104,3 +104,46 @@ export function hourlyTemperatures(tmin: number, tmax: number): number[] {
 export function dailyChillUnits(tminF: number, tmaxF: number): number {
   return hourlyTemperatures(tminF, tmaxF).reduce((sum, t) => sum + utahChillUnits(t), 0);
 }
+
+export interface ChillDay {
+  day: string;
+  units: number;
+  cumulative: number;
+}
+
+export const UTAH_CHILL_START_RULE = 'Counted from the day after the fall total (from September 1) is most negative, as in the Utah model (Richardson, Seeley & Walker 1974, HortScience 9:331–332; from memory of the paper)';
+
+/**
+ * Utah chill units of a winter, started as the model's authors start them: summed from a
+ * provisional start (September 1), the total first falls while warm fall days undo chill;
+ * counting begins the day after it is most negative in the fall (before January 1), or at
+ * the provisional start when it never goes below zero. Days in °F; sorted by day.
+ */
+export function utahChillFromFall(days: ReadonlyArray<{ day: string; tminF: number; tmaxF: number }>, provisionalStart: string): { from: string; total: number; series: ChillDay[] } {
+  const fallEnds = `${Number(provisionalStart.slice(0, 4)) + 1}-01-01`;
+  const sorted = [...days].filter((d) => d.day >= provisionalStart).sort((a, b) => a.day.localeCompare(b.day));
+  const units = sorted.map((d) => dailyChillUnits(d.tminF, d.tmaxF));
+  let running = 0;
+  let lowest = 0;
+  let startIndex = 0;
+  sorted.forEach((d, i) => {
+    running += units[i];
+    if (d.day < fallEnds && running < lowest - 1e-9) {
+      lowest = running;
+      startIndex = i + 1;
+    }
+  });
+  let cumulative = 0;
+  const series = sorted.slice(startIndex).map((d, i) => {
+    cumulative += units[startIndex + i];
+    return { day: d.day, units: units[startIndex + i], cumulative };
+  });
+  const from = startIndex === 0 ? provisionalStart : series[0]?.day ?? nextDay(sorted[startIndex - 1].day);
+  return { from, total: cumulative, series };
+}
+
+function nextDay(day: string): string {
+  const d = new Date(`${day}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + 1);
+  return d.toISOString().slice(0, 10);
+}

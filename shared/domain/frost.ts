@@ -1,6 +1,8 @@
 // Frost risk to flower buds: a forecast low against the published critical temperatures
 // of the block's current stage (temperature held 30 minutes that kills about 10% / 90% of
 // buds; WSU Extension, as republished by Penn State Extension and Utah State Univ.).
+// The published values are the temperatures AT which 10% / 90% of buds die, so a low at
+// or below a value counts.
 
 export interface CriticalTemperature {
   /** °C; 10% and 90% bud kill. */
@@ -10,9 +12,18 @@ export interface CriticalTemperature {
 
 export type FrostRisk = 'none' | 'damage' | 'severe';
 
-/** 'damage' when the low is below the 10%-kill temperature, 'severe' below the 90%-kill one. */
+/** Lows arrive converted from whole °F; a hair of floating-point noise must not hide an exact match. */
+const SAME_TEMPERATURE_C = 1e-6;
+
+/** 'damage' when the low is at or below the 10%-kill temperature, 'severe' at or below the 90%-kill one. */
 export function frostRisk(forecastLowC: number, critical: CriticalTemperature): FrostRisk {
-  if (forecastLowC < critical.kill90C) return 'severe';
-  if (forecastLowC < critical.kill10C) return 'damage';
+  if (!Number.isFinite(forecastLowC)) throw new RangeError('the forecast low must be a number');
+  if (forecastLowC <= critical.kill90C + SAME_TEMPERATURE_C) return 'severe';
+  if (forecastLowC <= critical.kill10C + SAME_TEMPERATURE_C) return 'damage';
   return 'none';
+}
+
+/** The coldest of the forecast lows (the first such day on a tie), or null without lows. */
+export function coldestLow<T extends { day: string; lowC: number }>(lows: readonly T[]): T | null {
+  return [...lows].sort((a, b) => a.lowC - b.lowC || a.day.localeCompare(b.day))[0] ?? null;
 }

@@ -1,16 +1,17 @@
 // Invoice pricing: what a pollination agreement and its confirmed placements come to, in
 // integer cents. Pure; used by the invoices service and shown the same way in the client.
 //
-// - Colonies delivered x price per colony. Colonies estimated below the agreed minimum
-//   strength are charged at the agreement's reduced share (0 = not charged).
-// - Below-minimum estimate: from the latest strength check of a placement, the share of
-//   sampled colonies under the minimum frames of bees, applied to the colonies in the
-//   checked group and rounded to the nearest whole colony (half up), never more than were
-//   delivered. A sample is the usual way to check strength (at least 10% of colonies,
-//   PA Dept. of Agriculture / Rutgers), so the sampled share stands for the group.
-// - Extra moves at the agreed fee each. Tax at the billing business's rate on the subtotal.
-// - Deposit share due on the day of the first delivery; balance due N days after the
-//   last pickup (unknown until every delivered placement is picked up).
+// - Colonies delivered x price per colony. A checked group that does not meet the agreed
+//   strength (its sample averages below the minimum frames of bees) has its estimated
+//   share of colonies below the minimum charged at the agreement's reduced share (0 = not
+//   charged); a group that meets it is charged in full. The rule and its clause wording
+//   are one, in agreement-billing.ts. A sample is the usual way to check strength (at
+//   least 10% of colonies, PA Dept. of Agriculture / Rutgers).
+// - Extra moves at the agreed fee per move (agreement-billing.ts). Tax at the billing
+//   business's rate on the subtotal.
+// - Deposit share due on the later of the first delivery day and the issue date plus the
+//   agreement's days (agreement-billing.ts); balance due N days after the last pickup
+//   (unknown until every delivered placement is picked up).
 // - Late interest: SIMPLE interest per STARTED month on the amount overdue, from the day
 //   after the due date. Agreements state the rate per month ("1% per month", UF/IFAS EDIS
 //   Sample Pollination Agreement 2015), and a started month is how such a clause is read
@@ -18,6 +19,7 @@
 //   the wording. No compounding.
 // - Payments go to the deposit first, then the balance.
 import { DateTime } from 'luxon';
+import { coloniesAtReducedRate, depositDueOn, extraMovesAmountCents, type StrengthSample } from './agreement-billing.js';
 
 export const invoiceStatuses = ['draft', 'issued', 'partly-paid', 'paid', 'overdue', 'void'] as const;
 export type InvoiceStatus = (typeof invoiceStatuses)[number];
@@ -31,10 +33,6 @@ export interface PricingTerms {
   minFramesOfBees: number;
 }
 
-export interface StrengthSample {
-  coloniesInGroup: number;
-  framesOfBees: number[];
-}
 
 export interface PlacementToPrice {
   placementId: string;
@@ -72,14 +70,6 @@ export function applyBasisPoints(amountCents: number, bp: number): number {
   return Math.round((amountCents * bp) / 10_000);
 }
 
-/** How many colonies of a checked group count as below the minimum (see the header). */
-export function estimateBelowMinimum(check: StrengthSample | null, minFramesOfBees: number, coloniesDelivered: number): number {
-  if (!check || check.framesOfBees.length === 0) return 0;
-  const below = check.framesOfBees.filter((frames) => frames < minFramesOfBees).length;
-  const estimate = Math.round((below / check.framesOfBees.length) * check.coloniesInGroup);
-  return Math.min(estimate, coloniesDelivered);
-}
-
 function localDate(at: Date, timeZone: string): DateTime {
   return DateTime.fromJSDate(at, { zone: timeZone }).startOf('day');
 }
@@ -90,18 +80,20 @@ export function priceInvoice(input: {
   extraMoves: number;
   taxRateBp: number;
   timeZone: string;
+  /** When the invoice is (or was) issued; a draft has none yet, and its deposit is shown due on the delivery day. */
+  issuedAt?: Date | null;
 }): PricedInvoice {
   const { terms } = input;
   const lines: PricedLine[] = [];
   const belowUnit = applyBasisPoints(terms.pricePerColonyCents, terms.belowMinimumRateBp);
   for (const p of input.placements) {
-    const below = estimateBelowMinimum(p.strengthCheck, terms.minFramesOfBees, p.coloniesDelivered);
+    const below = coloniesAtReducedRate(p.strengthCheck, terms.minFramesOfBees, p.coloniesDelivered);
     const full = p.coloniesDelivered - below;
     lines.push({ kind: 'colonies-full-rate', placementId: p.placementId, quantity: full, unitCents: terms.pricePerColonyCents, amountCents: full * terms.pricePerColonyCents });
     if (below > 0) lines.push({ kind: 'colonies-below-minimum', placementId: p.placementId, quantity: below, unitCents: belowUnit, amountCents: below * belowUnit });
   }
   if (input.extraMoves > 0) {
-    lines.push({ kind: 'extra-moves', placementId: null, quantity: input.extraMoves, unitCents: terms.extraMoveFeeCents, amountCents: input.extraMoves * terms.extraMoveFeeCents });
+    lines.push({ kind: 'extra-moves', placementId: null, quantity: input.extraMoves, unitCents: terms.extraMoveFeeCents, amountCents: extraMovesAmountCents(input.extraMoves, terms.extraMoveFeeCents) });
   }
   const subtotalCents = lines.reduce((sum, l) => sum + l.amountCents, 0);
   const taxCents = applyBasisPoints(subtotalCents, input.taxRateBp);
@@ -120,7 +112,11 @@ export function priceInvoice(input: {
     totalCents,
     depositCents,
     balanceCents: totalCents - depositCents,
-    depositDueOn: firstDelivery === undefined ? null : localDate(new Date(firstDelivery), input.timeZone).toISODate(),
+    depositDueOn: firstDelivery === undefined ? null : depositDueOn(
+      localDate(new Date(firstDelivery), input.timeZone).toISODate()!,
+      input.issuedAt ? localDate(input.issuedAt, input.timeZone).toISODate() : null,
+      terms.balanceDueDays,
+    ),
     balanceDueOn: lastPickup === null ? null : localDate(new Date(lastPickup), input.timeZone).plus({ days: terms.balanceDueDays }).toISODate(),
   };
 }

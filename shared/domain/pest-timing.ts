@@ -1,7 +1,9 @@
 // Pest timing from trap counts and degree days: the biofix is the first of two successive
 // trap checks that both caught moths; degree days accumulated from the biofix (codling
 // moth: 50/88 °F, single sine, horizontal cutoff) give the expected dates of each stage
-// (first egg hatch at 250 DD°F). MSU Enviroweather; Jones, Doerr & Brunner 2008.
+// (first egg hatch at 250 DD°F). MSU Enviroweather; Jones, Doerr & Brunner 2008. One season
+// at a time: the farm's calendar year in its time zone.
+import { DateTime } from 'luxon';
 import { dailyDegreeDays, type DailyTemperature } from './degree-days.js';
 
 export interface PestModelParameters {
@@ -40,29 +42,59 @@ export function findBiofix(checks: readonly TrapCheck[]): string | null {
 export interface StageTiming {
   name: string;
   degreeDaysF: number;
-  /** The day the total reached the stage, or null when not yet reached in the data. */
+  /** The day the total reached the stage, or null when not reached within the data. */
   reachedOn: string | null;
+  /** True when the stage is reached only on estimated (normal) days: a prediction. */
+  estimated: boolean;
 }
 
 export interface PestTiming {
+  /** The farm's season (calendar year in its time zone) the checks and temperatures belong to. */
+  season: number;
   biofix: string | null;
-  /** Degree days (°F) from the biofix through the last day with temperatures. */
+  /** Degree days (°F) from the biofix through the last observed day. */
   degreeDaysF: number;
+  /** The last observed day counted (estimated days only predict the stages). */
   lastDay: string | null;
   stages: StageTiming[];
 }
 
-/** Days in °F; the biofix day counts. */
-export function pestTiming(model: PestModelParameters, checks: readonly TrapCheck[], daysF: readonly DailyTemperature[]): PestTiming {
-  const biofix = findBiofix(checks);
-  const stages: StageTiming[] = model.stages.map((s) => ({ ...s, reachedOn: null }));
-  if (!biofix) return { biofix, degreeDaysF: 0, lastDay: null, stages };
+/** The farm's season a moment falls in: the calendar year in the farm's time zone. */
+export function seasonOf(at: Date, timeZone: string): number {
+  const local = DateTime.fromJSDate(at, { zone: timeZone });
+  if (!local.isValid) throw new RangeError(`unknown time zone: ${timeZone}`);
+  return local.year;
+}
+
+/** The first and last day of a season, YYYY-MM-DD. */
+export function seasonDays(season: number): { from: string; to: string } {
+  return { from: `${season}-01-01`, to: `${season}-12-31` };
+}
+
+/**
+ * Timing within one season (days in °F; the biofix day counts): checks and temperatures of
+ * other seasons are left out, so last year's catches never set this year's biofix.
+ */
+export function pestTiming(model: PestModelParameters, checks: readonly TrapCheck[], daysF: readonly DailyTemperature[], season: number): PestTiming {
+  const { from, to } = seasonDays(season);
+  const inSeason = (day: string) => day >= from && day <= to;
+  const biofix = findBiofix(checks.filter((c) => inSeason(c.day)));
+  const stages: StageTiming[] = model.stages.map((s) => ({ ...s, reachedOn: null, estimated: false }));
+  if (!biofix) return { season, biofix, degreeDaysF: 0, lastDay: null, stages };
   let total = 0;
+  let observedTotal = 0;
   let lastDay: string | null = null;
-  for (const day of [...daysF].filter((d) => d.day >= biofix).sort((a, b) => a.day.localeCompare(b.day))) {
+  for (const day of daysF.filter((d) => d.day >= biofix && inSeason(d.day)).sort((a, b) => a.day.localeCompare(b.day))) {
     total += dailyDegreeDays(day.tmin, day.tmax, model.lowerThresholdF, model.upperThresholdF, 'sine');
-    lastDay = day.day;
-    for (const stage of stages) if (!stage.reachedOn && total >= stage.degreeDaysF) stage.reachedOn = day.day;
+    if (!day.estimated) {
+      observedTotal = total;
+      lastDay = day.day;
+    }
+    for (const stage of stages) {
+      if (stage.reachedOn || total < stage.degreeDaysF) continue;
+      stage.reachedOn = day.day;
+      stage.estimated = Boolean(day.estimated);
+    }
   }
-  return { biofix, degreeDaysF: total, lastDay, stages };
+  return { season, biofix, degreeDaysF: observedTotal, lastDay, stages };
 }

@@ -3,8 +3,10 @@
 
 export function coloniesNeeded(acres: number, coloniesPerAcre: number): number {
   if (!(acres >= 0) || !(coloniesPerAcre >= 0)) throw new RangeError('acres and colonies per acre must be zero or more');
-  // Round away floating-point noise first so 10 acres x 2.2 is 22, not 23.
-  return Math.ceil(Number((acres * coloniesPerAcre).toFixed(9)));
+  // Round to a millionth of a colony first, so floating-point noise (10 acres x 2.2 =
+  // 22.000000000000004) and acres typed to seven places (12.3333334 x 3 = 37.0000002) do
+  // not ask for one colony more. The block page and the season overview both use this.
+  return Math.ceil(Number((acres * coloniesPerAcre).toFixed(6)));
 }
 
 export type StockingAdvice = 'below-range' | 'within-range' | 'above-range';

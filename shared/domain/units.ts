@@ -37,3 +37,19 @@ export function degreeDaysFahrenheitToCelsius(ddF: number): number {
 export function degreeDaysCelsiusToFahrenheit(ddC: number): number {
   return (ddC * 9) / 5;
 }
+
+export type TemperatureUnit = 'F' | 'C';
+
+/** A stored °F value as a form shows it: °F as stored, °C rounded to one decimal. */
+export function shownTemperature(fahrenheit: number, unit: TemperatureUnit): number {
+  return unit === 'F' ? fahrenheit : Number(fahrenheitToCelsius(fahrenheit).toFixed(1));
+}
+
+/**
+ * The °F value a form sends back. A shown value left unchanged returns the stored value
+ * exactly (43 °F is shown as 6.1 °C, and 6.1 °C is 42.98 °F, not 43); a changed one is converted.
+ */
+export function temperatureFromForm(shown: number, unit: TemperatureUnit, storedFahrenheit: number | null): number {
+  if (storedFahrenheit !== null && shown === shownTemperature(storedFahrenheit, unit)) return storedFahrenheit;
+  return unit === 'F' ? shown : celsiusToFahrenheit(shown);
+}

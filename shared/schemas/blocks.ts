@@ -108,6 +108,18 @@ export interface DegreeDayPoint {
   estimated: boolean;
 }
 
+export interface FrostCriticalForStage {
+  /** Degree-day stage key and name, with the source of its threshold. */
+  stage: string;
+  stageName: string;
+  stageSource: string;
+  /** The critical-temperature row used, its values (°C) and its source. */
+  stageLabel: string;
+  kill10C: number;
+  kill90C: number;
+  source: string;
+}
+
 export interface BlockForecastDto {
   blockId: string;
   stationId: string | null;
@@ -125,15 +137,10 @@ export interface BlockForecastDto {
   suggestedWindow: SuggestedBloomWindow | null;
   currentStage: { stage: string; label: string } | null;
   cumulativeToDate: number;
-  frost: null | {
-    risk: Exclude<FrostRisk, 'none'>;
-    day: string;
-    lowC: number;
-    stageLabel: string;
-    kill10C: number;
-    kill90C: number;
-    source: string;
-  };
+  /** The critical bud temperatures of the current stage: the degree-day stage, the table row used, and their sources. */
+  frostCritical: FrostCriticalForStage | null;
+  /** A forecast low at or below the current stage's critical temperatures. */
+  frost: null | (FrostCriticalForStage & { risk: Exclude<FrostRisk, 'none'>; day: string; lowC: number });
   /** Why no forecast could be made (no station, no thresholds for the crop ...). */
   notes: string[];
 }

@@ -79,6 +79,8 @@ export interface PaymentDto {
   state: 'pending' | 'succeeded' | 'failed';
   amountCents: number;
   refundedCents: number;
+  /** How much of it went beyond what was owed when it arrived (offered for refund). */
+  overpaidCents: number;
   reference: string | null;
   failureMessage: string | null;
   receivedAt: string | null;
@@ -108,6 +110,8 @@ export interface InvoiceSummaryDto {
   netTotalCents: number;
   paidCents: number;
   outstandingCents: number;
+  /** Paid beyond the net total (two payments for one balance, say): to be refunded. */
+  overpaidCents: number;
   depositCents: number;
   depositDueOn: string | null;
   balanceDueOn: string | null;

@@ -1,6 +1,6 @@
 // Spray plans: the input the form sends (also used by the dry-run check) and the DTOs back.
 import { z } from 'zod';
-import { idSchema, isoDateTimeSchema } from './common.js';
+import { idSchema, isoDateTimeSchema, maxWindowDays, windowAtMost } from './common.js';
 import type { BeeToxicityClass } from '../domain/bee-toxicity.js';
 import type { ConflictGrade } from '../domain/conflict-grading.js';
 
@@ -33,7 +33,9 @@ const sprayFields = {
 const windowRule = <T extends { startsAt?: string; endsAt?: string }>(v: T) => !v.startsAt || !v.endsAt || new Date(v.endsAt) > new Date(v.startsAt);
 const windowIssue = { message: 'must be after the start', path: ['endsAt'] };
 
-export const sprayInputSchema = z.object(sprayFields).refine(windowRule, windowIssue);
+const windowLength = windowAtMost('startsAt', 'endsAt', maxWindowDays.spray);
+
+export const sprayInputSchema = z.object(sprayFields).refine(windowRule, windowIssue).refine(...windowLength);
 export type SprayInput = z.infer<typeof sprayInputSchema>;
 
 /** A change to a plan (moving it is a change of startsAt/endsAt); both times are sent together. */
@@ -41,7 +43,8 @@ export const sprayUpdateSchema = z
   .object(sprayFields)
   .partial()
   .refine((v) => (v.startsAt === undefined) === (v.endsAt === undefined), { message: 'send the start and the end together', path: ['endsAt'] })
-  .refine(windowRule, windowIssue);
+  .refine(windowRule, windowIssue)
+  .refine(...windowLength);
 export type SprayUpdate = z.infer<typeof sprayUpdateSchema>;
 
 export const sprayApplySchema = z.object({ appliedAt: isoDateTimeSchema });

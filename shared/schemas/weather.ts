@@ -78,7 +78,11 @@ export interface UploadResult {
 
 export interface ChillDto {
   stationId: string;
+  /** The day chill is counted from (the model's fall start, or the day asked for). */
   from: string;
+  /** Where the search for the fall start began (September 1). */
+  searchedFrom: string;
+  startRule: string;
   model: 'utah';
   source: string;
   total: number;

@@ -91,6 +91,17 @@ describe('/api/blocks', () => {
     expect(block.coloniesNeeded).toBe(63); // ceil(12.5 x 5 = 62.5)
   });
 
+  it('gives the same colonies needed on the block page and the season overview (12.3333334 acres at 3 per acre)', async () => {
+    const res = await grower.post('/api/blocks', { name: 'Third bench', crop: 'apple', enteredAcres: 12.3333334, coloniesPerAcre: 3 }).expect(201);
+    // 12.3333334 x 3 = 37.0000002: 37 colonies, the product rounded to a millionth of a colony before rounding up
+    // (TRADE.md §1: acres x rate, rounded up; the tolerance is common practice, no source).
+    expect(res.body.block.coloniesNeeded).toBe(37);
+    const overview = (await grower.get('/api/dashboard/grower').expect(200)).body;
+    const row = overview.blocks.find((b: { id: string }) => b.id === res.body.block.id);
+    expect(row.coloniesNeeded).toBe(37);
+    await grower.delete(`/api/blocks/${res.body.block.id}`).expect(204);
+  });
+
   it('changes a block, recomputing acreage from a new outline', async () => {
     const created = (await grower.post('/api/blocks', { name: 'Changing block', crop: 'apple', enteredAcres: 3 }).expect(201)).body.block as BlockDto;
     const patched = await grower.patch(`/api/blocks/${created.id}`, { outline: orchardOutline, coloniesPerAcre: 2 });

@@ -39,6 +39,7 @@ describe('bloom forecasts and windows', () => {
   let blockId: string;
   let stationId: string;
   let apiaryId: string;
+  let farmId: string;
   const sockets: AppSocket[] = [];
 
   beforeAll(async () => {
@@ -51,6 +52,7 @@ describe('bloom forecasts and windows', () => {
     const apiary = await buildOrganization({ kind: 'apiary', name: 'Goldthistle Apiaries' });
     const bystander = await buildOrganization({ kind: 'apiary', name: 'Far Meadow Bees' });
     apiaryId = apiary.id;
+    farmId = farm.id;
     await buildUser({ organization: farm, role: 'owner', email: 'owner@marrowdene.test', name: 'Wren Oakhurst' });
     await buildUser({ organization: apiary, role: 'owner', email: 'owner@goldthistle.test' });
     await buildUser({ organization: bystander, role: 'owner', email: 'owner@farmeadow.test' });
@@ -74,12 +76,16 @@ describe('bloom forecasts and windows', () => {
     const res = await grower.get('/api/bloom/stage-thresholds?crop=apple').expect(200);
     const rows = res.body.thresholds as StageThresholdDto[];
     // Source: Cornell / UMass fruit newsletters (TRADE.md §4): base 43 °F from March 1; green tip 100–120,
-    // pink 267–316, petal fall 439–523 DD°F. Bloom 330–400 is our interpolation, labelled as such.
+    // pink 267–316, petal fall 439–523 DD°F. Bloom 330–400 is our interpolation; silver tip, half-inch green
+    // and tight cluster (one stage per WSU critical-temperature row) are from memory, each labelled as such.
     expect(rows.map((r) => [r.stage, r.ddLowF, r.ddHighF, r.baseF, r.startMonthDay])).toEqual([
-      ['green-tip', 100, 120, 43, '03-01'], ['pink', 267, 316, 43, '03-01'], ['bloom', 330, 400, 43, '03-01'], ['petal-fall', 439, 523, 43, '03-01'],
+      ['silver-tip', 50, 90, 43, '03-01'], ['green-tip', 100, 120, 43, '03-01'], ['half-inch-green', 140, 190, 43, '03-01'],
+      ['tight-cluster', 200, 260, 43, '03-01'], ['pink', 267, 316, 43, '03-01'], ['bloom', 330, 400, 43, '03-01'], ['petal-fall', 439, 523, 43, '03-01'],
     ]);
-    expect(rows[0].source).toMatch(/Cornell/);
-    expect(rows[2].source).toMatch(/Interpolated/);
+    expect(rows[1].source).toMatch(/Cornell/);
+    expect(rows[0].source).toMatch(/from memory/);
+    expect(rows[3].source).toMatch(/from memory/);
+    expect(rows[5].source).toMatch(/Interpolated/);
   });
 
   it('seeds the published frost critical temperatures (10% / 90% kill)', async () => {
@@ -143,6 +149,34 @@ describe('bloom forecasts and windows', () => {
     expect(severe.frost).toMatchObject({ risk: 'severe', day: '2027-03-24' });
   });
 
+  it('gives apple, pear and sweet cherry blocks frost risk at their own stage, a low at the critical value counting', async () => {
+    const station = (await buildStation({ farm: { id: farmId }, name: 'Marrowdene low field' })).id;
+    await buildDailyTemperatures({ station: { id: station }, days: march });
+    let made = 0;
+    const forecastOf = async (crop: string) => {
+      made += 1;
+      const block = await grower.post('/api/blocks', { name: `Low field ${crop} ${made}`, crop, enteredAcres: 5, weatherStationId: station, degreeDayStart: '2027-03-01' }).expect(201);
+      return (await grower.get(`/api/blocks/${block.body.block.id}/forecast`).expect(200)).body.forecast as BlockForecastDto;
+    };
+    // 320 DD°F by 20 March (16 a day). Without forecast lows each block still shows its stage's row.
+    const calm = await forecastOf('pear');
+    expect(calm.frost).toBeNull();
+    // Source: WSU Extension EB0978 (pear, Bartlett) via Penn State Extension: first bloom 27 °F / 23 °F.
+    expect(calm.frostCritical).toMatchObject({ stage: 'bloom', stageName: 'First bloom', stageLabel: 'First bloom' });
+    expect(calm.frostCritical!.kill90C).toBeCloseTo(-5, 6);
+    // 28 °F exactly: WSU lists 28 °F as the 10% kill temperature of apple first pink and sweet cherry full bloom.
+    await grower.put(`/api/weather/stations/${station}/forecast-lows/2027-03-22`, { low: 28, unit: 'F' }).expect(200);
+    const apple = await forecastOf('apple');
+    expect(apple.frost).toMatchObject({ risk: 'damage', stage: 'pink', stageName: 'Pink', stageLabel: 'First pink', day: '2027-03-22' });
+    expect(apple.frost!.source).toMatch(/WSU Extension/);
+    expect(apple.frost!.stageSource).toMatch(/Cornell/);
+    const cherry = await forecastOf('sweet-cherry');
+    // Source: WSU Extension EB1128 (sweet cherry) via Penn State Extension: full bloom 28 °F / 25 °F.
+    expect(cherry.frost).toMatchObject({ risk: 'damage', stage: 'full-bloom', stageLabel: 'Full bloom' });
+    expect(cherry.frost!.stageSource).toMatch(/from memory/);
+    expect((await forecastOf('pear')).frost).toBeNull(); // 28 °F is above pear first bloom's 27 °F
+  });
+
   it('keeps every bloom window revision in order, sends it live to the farm and following apiaries only, and e-mails a digest', async () => {
     const farmSide = await socketFor(t, 'owner@marrowdene.test');
     const keeperSide = await socketFor(t, 'owner@goldthistle.test');
@@ -172,9 +206,9 @@ describe('bloom forecasts and windows', () => {
     const digests = await eventually(() => {
       const found = t.sink.messages.filter((m) => m.to.includes('owner@goldthistle.test') && /Bloom windows revised/.test(m.subject));
       const mentioned = found.map((m) => m.text).join('\n');
-      return mentioned.includes('bloom from 2027-03-24') ? found : null;
+      return mentioned.includes('bloom from Wed 24 Mar 2027') ? found : null; // 2027-03-24, shown as a person reads it
     }, 15_000);
-    expect(digests[0].text).toMatch(/Marrowdene Orchards, Hilltop apples \(apple\)/);
+    expect(digests[0].text).toMatch(/Marrowdene Orchards, Hilltop apples \(Apple\)/);
     expect(t.sink.messages.some((m) => m.to.includes('owner@farmeadow.test'))).toBe(false);
     // Everything is reported: the next digest has nothing to send.
     await eventually(async () => (await sendBloomDigest(t.context, apiaryId)) === 0);
@@ -189,7 +223,7 @@ describe('bloom forecasts and windows', () => {
   });
 
   it('lets a farm keep its own thresholds for a variety, leaving the published ones to the admin', async () => {
-    const published = ((await grower.get('/api/bloom/stage-thresholds?crop=apple').expect(200)).body.thresholds as StageThresholdDto[])[0];
+    const published = ((await grower.get('/api/bloom/stage-thresholds?crop=apple').expect(200)).body.thresholds as StageThresholdDto[]).find((r) => r.stage === 'green-tip')!;
     expect((await grower.patch(`/api/bloom/stage-thresholds/${published.id}`, { ddLowF: 90 })).status).toBe(403);
     const own = await grower.post('/api/bloom/stage-thresholds', {
       crop: 'apple', variety: 'Honeycrisp', stage: 'bloom', label: 'Bloom (our records)', baseF: 43, ddLowF: 200, ddHighF: 260, source: 'Own observation, 2024–2026',

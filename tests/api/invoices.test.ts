@@ -38,19 +38,20 @@ describe('invoices API', () => {
   it('drafts an invoice from the placements and the strength check, visible only to the beekeeper until issued', async () => {
     const season = await buildBillableSeason({
       farm, apiary, colonies: 40, deliveredAt, pickedUpAt, pricePerColonyCents: 6500, belowMinimumRateBp: 5000, extraMoveFeeCents: 2500,
-      framesOfBees: [8, 5, 7, 4, 9, 6, 5.5, 7, 8, 10],
+      framesOfBees: [8, 5, 7, 4, 3, 6, 5, 4, 6, 8],
     });
     const res = await keeper.post('/api/invoices', { agreementId: season.agreement.id, extraMoves: 1 }).expect(201);
     const invoice = res.body.invoice;
-    // 3 of 10 sampled under 6 frames -> 12 of 40 below minimum (common practice of sampling: PA Dept. of Agriculture / Rutgers).
-    // 28 x $65.00 = $1,820.00; 12 x $32.50 = $390.00; 1 move x $25.00 = $25.00; subtotal $2,235.00.
-    expect(invoice.lines.map((l: { quantity: number; amountCents: number }) => [l.quantity, l.amountCents])).toEqual([[28, 182_000], [12, 39_000], [1, 2_500]]);
-    expect(invoice.subtotalCents).toBe(223_500);
-    // Tax 7.25% of $2,235.00 = $162.0375 -> $162.04 (half up); total $2,397.04; deposit 50% = $1,198.52.
-    expect(invoice.taxCents).toBe(16_204);
-    expect(invoice.totalCents).toBe(239_704);
-    expect(invoice.depositCents).toBe(119_852);
-    expect(invoice.depositDueOn).toBe('2027-04-10');
+    // The sample averages 56 / 10 = 5.6 frames < 6, so the group does not meet the agreement (Rutgers NJ: the
+    // shortfall is not made up); 5 of 10 sampled under 6 frames -> 20 of 40 below minimum (PA Dept. of Agriculture / Rutgers sampling).
+    // 20 x $65.00 = $1,300.00; 20 x $32.50 = $650.00; 1 move x $25.00 = $25.00; subtotal $1,975.00.
+    expect(invoice.lines.map((l: { quantity: number; amountCents: number }) => [l.quantity, l.amountCents])).toEqual([[20, 130_000], [20, 65_000], [1, 2_500]]);
+    expect(invoice.subtotalCents).toBe(197_500);
+    // Tax 7.25% of $1,975.00 = $143.1875 -> $143.19 (half up); total $2,118.19; deposit 50% = $1,059.095 -> $1,059.10.
+    expect(invoice.taxCents).toBe(14_319);
+    expect(invoice.totalCents).toBe(211_819);
+    expect(invoice.depositCents).toBe(105_910);
+    expect(invoice.depositDueOn).toBe('2027-04-10'); // a draft: the delivery day until it is issued
     expect(invoice.balanceDueOn).toBe('2027-05-31'); // 1 May + 30 days
     expect(invoice.status).toBe('draft');
     expect(invoice.number).toBeNull();
@@ -82,6 +83,9 @@ describe('invoices API', () => {
     const issued = await keeper.post(`/api/invoices/${body.invoice.id}/issue`, {}).expect(200);
     expect(issued.body.invoice.number).toMatch(/^INV-\d{5}$/);
     expect(issued.body.invoice.status).toBe('issued');
+    // The agreement's fee clause: the deposit is due on the first delivery day, or 30 days after issue if later.
+    // Issued 10 April (the delivery day) -> 10 April + 30 days = 10 May.
+    expect(issued.body.invoice.depositDueOn).toBe('2027-05-10');
     await keeper.patch(`/api/invoices/${body.invoice.id}`, { extraMoves: 3 }).expect(409);
     await keeper.post(`/api/invoices/${body.invoice.id}/issue`, {}).expect(409);
 
@@ -106,6 +110,9 @@ describe('invoices API', () => {
     const invoice = await buildInvoice({ agreement: season.agreement, apiary, issuedAt: clock });
     // 10 x $50.00 = $500.00 + 7.25% tax $36.25 = $536.25.
     expect(invoice.totalCents).toBe(53_625);
+    // Issued 20 April, ten days after the 10 April delivery: not overdue on issue; the deposit falls due 20 April + 30 days.
+    const fresh = (await keeper.get(`/api/invoices/${invoice.id}`).expect(200)).body.invoice;
+    expect(fresh).toMatchObject({ status: 'issued', depositDueOn: '2027-05-20', accruedInterestCents: 0 });
     const tooMuch = await keeper.post(`/api/invoices/${invoice.id}/credit-notes`, { amountCents: 53_626, reason: 'Too much' }).expect(400);
     expect(tooMuch.body.error.fields).toHaveProperty('amountCents');
     const credited = await keeper.post(`/api/invoices/${invoice.id}/credit-notes`, { amountCents: 5_000, reason: 'One colony arrived late' }).expect(201);
@@ -149,7 +156,7 @@ describe('invoices API', () => {
     const lateGrower = await signedInClient(t.app, 'owner@slowpay.test');
     const season = await buildBillableSeason({ farm: late, apiary, colonies: 40, deliveredAt, pickedUpAt, pricePerColonyCents: 6500, lateInterestBpPerMonth: 100 });
     const invoice = await buildInvoice({ agreement: season.agreement, apiary, issuedAt: clock });
-    // $2,600.00 + 7.25% = $2,788.50; deposit $1,394.25 due 10 April; balance $1,394.25 due 31 May.
+    // $2,600.00 + 7.25% = $2,788.50; deposit $1,394.25 due 20 May (issued 20 April + 30 days); balance $1,394.25 due 31 May.
     await buildManualPayment({ invoice, amountCents: invoice.depositCents, receivedAt: clock });
     clock = new Date('2027-05-20T18:00:00Z');
     expect((await lateGrower.get(`/api/invoices/${invoice.id}`).expect(200)).body.invoice.status).toBe('partly-paid');

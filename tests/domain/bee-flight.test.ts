@@ -40,3 +40,27 @@ describe('bee flight hours', () => {
     expect(early).toBeLessThan(0.85);
   });
 });
+
+describe('bee flight hours at high latitude and with bad input', () => {
+  // 65° N, 25° E near midsummer: the sun sets for only about two hours (suncalc, a general-purpose sun-position
+  // library), so 2 h before sunrise to 1 h after sunset covers the whole day and one day's window runs into the next.
+  const north = { lat: 65, lon: 25 };
+
+  it('never counts more hours than the span asked about', () => {
+    const from = new Date('2027-06-20T00:00:00Z');
+    const day = hoursDuringBeeFlight(from, new Date(from.getTime() + 24 * 3_600_000), north.lat, north.lon);
+    expect(day).toBeLessThanOrEqual(24);
+    expect(day).toBeCloseTo(24, 5); // every hour of the day lies in some day's window: counted once
+    const week = hoursDuringBeeFlight(from, new Date(from.getTime() + 7 * 24 * 3_600_000), north.lat, north.lon);
+    expect(week).toBeLessThanOrEqual(7 * 24);
+  });
+
+  it('rejects coordinates that are not finite numbers instead of answering 0 hours', () => {
+    const from = new Date('2027-06-20T00:00:00Z');
+    const to = new Date('2027-06-20T06:00:00Z');
+    expect(() => hoursDuringBeeFlight(from, to, Number.NaN, 25)).toThrow(RangeError);
+    expect(() => hoursDuringBeeFlight(from, to, 65, Number.POSITIVE_INFINITY)).toThrow(RangeError);
+    expect(() => overlapsBeeFlight(from, to, Number.NaN, Number.NaN)).toThrow(/latitude/);
+    expect(() => hoursDuringBeeFlight(new Date('not a date'), to, 65, 25)).toThrow(RangeError);
+  });
+});

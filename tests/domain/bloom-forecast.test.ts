@@ -1,9 +1,7 @@
-// Stage prediction from accumulated degree days, and frost risk against critical temperatures.
+// Stage prediction from accumulated degree days (frost risk: frost.test.ts).
 import { describe, it, expect } from 'vitest';
 import { accumulateDegreeDays } from '../../shared/domain/degree-days.js';
 import { predictStages, currentStage, suggestBloomWindow } from '../../shared/domain/bloom-forecast.js';
-import { frostRisk } from '../../shared/domain/frost.js';
-import { fahrenheitToCelsius } from '../../shared/domain/units.js';
 
 // Source: Cornell / UMass fruit newsletters (TRADE.md §4): apple base 43 °F from March 1,
 // green tip about 100–120 DD, pink 267–316, petal fall about 439–523. Bloom 330–400 is our
@@ -45,19 +43,5 @@ describe('predictStages', () => {
   it('suggests a bloom window in order: start <= full bloom <= petal fall', () => {
     const window = suggestBloomWindow(predictStages(series, apple))!;
     expect(window).toEqual({ bloomStart: '2027-04-02', fullBloom: '2027-04-09', petalFall: '2027-04-18' });
-  });
-});
-
-describe('frostRisk', () => {
-  // Source: WSU Extension EB0913 (apple, Red Delicious), as republished by Penn State Extension
-  // "Orchard Frost – Critical Temperatures for Various Fruits": full bloom 28 °F (10% kill), 25 °F (90% kill).
-  const fullBloom = { kill10C: fahrenheitToCelsius(28), kill90C: fahrenheitToCelsius(25) };
-  it('warns below the 10% kill temperature, not at it', () => {
-    expect(frostRisk(fahrenheitToCelsius(28), fullBloom)).toBe('none');
-    expect(frostRisk(fahrenheitToCelsius(27.9), fullBloom)).toBe('damage');
-  });
-  it('is severe below the 90% kill temperature', () => {
-    expect(frostRisk(fahrenheitToCelsius(25), fullBloom)).toBe('damage');
-    expect(frostRisk(fahrenheitToCelsius(24.9), fullBloom)).toBe('severe');
   });
 });

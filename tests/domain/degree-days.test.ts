@@ -1,6 +1,6 @@
 // Degree days and chill units against the published methods and examples.
 import { describe, it, expect } from 'vitest';
-import { dailyDegreeDays, utahChillUnits, accumulateDegreeDays, dailyChillUnits, hourlyTemperatures } from '../../shared/domain/degree-days.js';
+import { dailyDegreeDays, utahChillUnits, accumulateDegreeDays, dailyChillUnits, hourlyTemperatures, utahChillFromFall } from '../../shared/domain/degree-days.js';
 
 describe('dailyDegreeDays', () => {
   it('average method: mean 64 °F over 53 °F gives 11 DD', () => {
@@ -83,5 +83,38 @@ describe('utahChillUnits', () => {
     expect(Math.max(...hours)).toBeCloseTo(50, 10);
     expect(hours[5]).toBeCloseTo(30, 10);
     expect(hours[15]).toBeCloseTo(50, 10);
+  });
+});
+
+describe('utahChillFromFall', () => {
+  // Source: Richardson, Seeley & Walker 1974, "A model for estimating the completion of rest for Redhaven and
+  // Elberta peach trees", HortScience 9:331–332: chill units are counted from the fall day their running total is
+  // most negative (from memory of the paper). Units per hour as published: 40 °F +1 (24 a day), above 65 °F -1.
+  const day = (md: string, tminF: number, tmaxF: number) => ({ day: `2026-${md}`, tminF, tmaxF });
+  const run = (from: string, n: number, tminF: number, tmaxF: number) => Array.from({ length: n }, (_, i) => {
+    const d = new Date(`2026-${from}T00:00:00Z`);
+    d.setUTCDate(d.getUTCDate() + i);
+    return day(d.toISOString().slice(5, 10), tminF, tmaxF);
+  });
+
+  it('starts the day after the most negative fall total, not on September 1', () => {
+    // 10 hot days (70–90 °F: -24 a day) reach -240 on 10 September; 10 days at 40 °F then add 24 a day.
+    const chill = utahChillFromFall([...run('09-01', 10, 70, 90), ...run('09-11', 10, 40, 40)], '2026-09-01');
+    expect(chill.from).toBe('2026-09-11');
+    expect(chill.total).toBe(240);
+    expect(chill.series[0]).toEqual({ day: '2026-09-11', units: 24, cumulative: 24 });
+  });
+
+  it('starts on September 1 when the total never goes below zero, and ignores warm days after the fall', () => {
+    const cool = utahChillFromFall(run('09-01', 5, 40, 40), '2026-09-01');
+    expect(cool).toMatchObject({ from: '2026-09-01', total: 120 });
+    // A warm January spell (after the fall) lowers the total but does not move the start.
+    const winter = [...run('12-30', 2, 40, 40), { day: '2027-01-01', tminF: 70, tmaxF: 90 }, { day: '2027-01-02', tminF: 70, tmaxF: 90 }, { day: '2027-01-03', tminF: 70, tmaxF: 90 }];
+    expect(utahChillFromFall(winter, '2026-09-01')).toMatchObject({ from: '2026-09-01', total: 48 - 72 });
+  });
+
+  it('waits for data when the fall total is still falling', () => {
+    const warm = utahChillFromFall(run('09-01', 3, 70, 90), '2026-09-01');
+    expect(warm).toEqual({ from: '2026-09-04', total: 0, series: [] });
   });
 });

@@ -9,6 +9,10 @@ describe('coloniesNeeded', () => {
     expect(coloniesNeeded(20, 2)).toBe(40);
     expect(coloniesNeeded(20.1, 2)).toBe(41);
     expect(coloniesNeeded(10, 2.2)).toBe(22); // no floating-point overshoot
+    // 12.3333334 acres (12⅓ typed to seven places) x 3 = 37.0000002: 37, rounded to a millionth of a colony
+    // first (common practice, no source), the same on the block page and the season overview.
+    expect(coloniesNeeded(12.3333334, 3)).toBe(37);
+    expect(coloniesNeeded(12.334, 3)).toBe(38); // 37.002 is a real shortfall
     expect(coloniesNeeded(0.3, 1)).toBe(1);
     expect(coloniesNeeded(0, 2)).toBe(0);
   });

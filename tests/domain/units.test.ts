@@ -2,7 +2,7 @@
 import { describe, it, expect } from 'vitest';
 import {
   acresToHectares, hectaresToAcres, fahrenheitToCelsius, celsiusToFahrenheit, degreeDaysFahrenheitToCelsius,
-  squareMetresToAcres, SQUARE_METRES_PER_ACRE,
+  squareMetresToAcres, SQUARE_METRES_PER_ACRE, shownTemperature, temperatureFromForm,
 } from '../../shared/domain/units.js';
 
 describe('area', () => {
@@ -35,5 +35,21 @@ describe('temperature', () => {
     // Source: UC IPM degree-day methods: DD°F = 1.8 x DD°C.
     expect(degreeDaysFahrenheitToCelsius(18)).toBe(10);
     expect(degreeDaysFahrenheitToCelsius(0)).toBe(0);
+  });
+});
+
+describe('temperatures in forms', () => {
+  // °C = (°F − 32) × 5/9 (NIST SP 811, 2008): 43 °F = 6.111… °C, shown as 6.1 °C; 6.1 °C = 42.98 °F.
+  it('sends back exactly 43 °F when a threshold shown as 6.1 °C is left unchanged', () => {
+    expect(shownTemperature(43, 'C')).toBe(6.1);
+    expect(temperatureFromForm(6.1, 'C', 43)).toBe(43);
+    expect(temperatureFromForm(shownTemperature(50, 'C'), 'C', 50)).toBe(50);
+  });
+
+  it('converts a changed value, and passes °F through', () => {
+    expect(temperatureFromForm(10, 'C', 43)).toBeCloseTo(50, 9);
+    expect(temperatureFromForm(6.1, 'C', null)).toBeCloseTo(42.98, 9);
+    expect(temperatureFromForm(45, 'F', 43)).toBe(45);
+    expect(shownTemperature(43, 'F')).toBe(43);
   });
 });

@@ -54,4 +54,26 @@ export function associateModels(m: Models) {
   m.AlertView.belongsTo(m.Alert, { foreignKey: 'alertId', as: 'alert' });
   m.AlertView.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
   m.AlertView.belongsTo(m.User, { foreignKey: 'seenBy', as: 'seer' });
+
+  // invoices and payments (the agreement and placement ends are declared with those models)
+  m.Invoice.belongsTo(m.Organization, { foreignKey: 'apiaryId', as: 'apiary' });
+  m.Invoice.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
+  m.Invoice.belongsTo(m.User, { foreignKey: 'issuedBy', as: 'issuer' });
+  m.Invoice.belongsTo(m.User, { foreignKey: 'createdBy', as: 'creator' });
+  m.Invoice.hasMany(m.InvoiceLine, { foreignKey: 'invoiceId', as: 'lines' });
+  m.InvoiceLine.belongsTo(m.Invoice, { foreignKey: 'invoiceId', as: 'invoice' });
+  m.Invoice.hasMany(m.CreditNote, { foreignKey: 'invoiceId', as: 'creditNotes' });
+  m.CreditNote.belongsTo(m.Invoice, { foreignKey: 'invoiceId', as: 'invoice' });
+  m.CreditNote.belongsTo(m.Organization, { foreignKey: 'apiaryId', as: 'apiary' });
+  m.CreditNote.belongsTo(m.User, { foreignKey: 'createdBy', as: 'creator' });
+  m.Invoice.hasMany(m.Payment, { foreignKey: 'invoiceId', as: 'payments' });
+  m.Payment.belongsTo(m.Invoice, { foreignKey: 'invoiceId', as: 'invoice' });
+  m.Payment.belongsTo(m.User, { foreignKey: 'recordedBy', as: 'recorder' });
+  m.Invoice.hasMany(m.Refund, { foreignKey: 'invoiceId', as: 'refunds' });
+  m.Refund.belongsTo(m.Invoice, { foreignKey: 'invoiceId', as: 'invoice' });
+  m.Refund.belongsTo(m.User, { foreignKey: 'requestedBy', as: 'requester' });
+  m.Invoice.hasMany(m.InvoiceReminder, { foreignKey: 'invoiceId', as: 'reminders' });
+  m.InvoiceReminder.belongsTo(m.Invoice, { foreignKey: 'invoiceId', as: 'invoice' });
+  m.Organization.hasMany(m.InvoiceNumberCounter, { foreignKey: 'apiaryId', as: 'invoiceCounters' });
+  m.InvoiceNumberCounter.belongsTo(m.Organization, { foreignKey: 'apiaryId', as: 'apiary' });
 }

@@ -1,7 +1,7 @@
 // Local stand-in for the hosted payments service, spoken to by the official `stripe` SDK
 // (host 127.0.0.1, http). It implements only what Pollenpact calls, with the same
-// form-encoded requests and JSON answers: POST/GET /v1/checkout/sessions, GET
-// /v1/payment_intents/:id and POST /v1/refunds. It serves the card step itself (a page
+// form-encoded requests and JSON answers: POST/GET /v1/checkout/sessions, POST
+// /v1/checkout/sessions/:id/expire, GET /v1/payment_intents/:id and POST /v1/refunds. It serves the card step itself (a page
 // clearly marked TEST PAYMENT where a full or partial amount can be paid, or the card
 // declined) and sends signed webhook events back, the way the hosted service does.
 import express, { type Request, type Response } from 'express';
@@ -41,7 +41,7 @@ interface CheckoutSession {
   id: string;
   object: 'checkout.session';
   mode: string;
-  status: 'open' | 'complete';
+  status: 'open' | 'complete' | 'expired';
   payment_status: 'unpaid' | 'paid';
   amount_total: number;
   currency: string;
@@ -152,6 +152,16 @@ export async function startPaymentsStandIn(options: { port?: number; secretKey: 
     res.json(publicSession(session));
   });
 
+  // Expiring an open session: its page can no longer be paid; the service reports it by webhook.
+  api.post('/checkout/sessions/:id/expire', (req, res) => {
+    const session = sessions.get(req.params.id);
+    if (!session) return stripeError(res, 404, `No such checkout.session: '${req.params.id}'`, 'id');
+    if (session.status !== 'open') return stripeError(res, 400, `Only Checkout Sessions with a status of 'open' can be expired; this one is '${session.status}'.`);
+    session.status = 'expired';
+    res.json(publicSession(session));
+    setImmediate(() => void sendEvent('checkout.session.expired', publicSession(session)));
+  });
+
   api.get('/payment_intents/:id', (req, res) => {
     const intent = paymentIntents.get(req.params.id);
     if (!intent) return stripeError(res, 404, `No such payment_intent: '${req.params.id}'`, 'id');
@@ -183,6 +193,7 @@ export async function startPaymentsStandIn(options: { port?: number; secretKey: 
   app.get('/pay/:id', (req, res) => {
     const session = sessions.get(req.params.id);
     if (!session) return res.status(404).type('text/plain').send('No such payment session.');
+    if (session.status === 'expired') return res.status(410).type('html').send(payPage(session, 'This payment page has expired; nothing was charged. Go back to the invoice to pay.'));
     res.type('html').send(payPage(session));
   });
 
@@ -190,6 +201,7 @@ export async function startPaymentsStandIn(options: { port?: number; secretKey: 
     const session = sessions.get(req.params.id);
     if (!session) return res.status(404).type('text/plain').send('No such payment session.');
     if (session.status === 'complete') return res.redirect(303, session.success_url);
+    if (session.status === 'expired') return res.status(410).type('html').send(payPage(session, 'This payment page has expired; nothing was charged. Go back to the invoice to pay.'));
     const amount = Math.round(Number(String(req.body.amount ?? '').replace(/,/g, '')) * 100);
     if (!Number.isInteger(amount) || amount <= 0 || amount > session.amount_total) {
       return res.status(400).type('html').send(payPage(session, `Enter an amount between 0.01 and ${(session.amount_total / 100).toFixed(2)}.`));
@@ -263,14 +275,14 @@ function payPage(session: CheckoutSession, message?: string) {
     <p>${escapeHtml(session.description)}</p>
     <p>Amount due: <strong>${currency} ${amount}</strong></p>
     ${message ? `<p class="message" role="alert">${escapeHtml(message)}</p>` : ''}
-    <form method="post" action="/pay/${escapeHtml(session.id)}">
+    ${session.status === 'expired' ? '' : `<form method="post" action="/pay/${escapeHtml(session.id)}">
       <label for="amount">Amount to pay (${currency})</label>
       <input id="amount" name="amount" inputmode="decimal" value="${amount}" required>
       <div class="actions">
         <button class="pay" type="submit" name="outcome" value="pay">Pay (test)</button>
         <button type="submit" name="outcome" value="decline">Decline the card (test)</button>
       </div>
-    </form>
+    </form>`}
     <p><a href="${escapeHtml(session.cancel_url)}">Back without paying</a></p>
   </main>
 </body></html>`;

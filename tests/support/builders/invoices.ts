@@ -3,7 +3,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { loadAgreement, insertDraft, issueDraft } from '../../../server/src/modules/invoices/invoice-drafting.js';
 import { buildSignedSeason, buildStrengthCheck, type RequestTerms } from './season.js';
-import { builderModels, builderSequelize } from './builder-database.js';
+import { builderDatabase, builderModels, builderSequelize } from './builder-database.js';
 
 type Org = { id: string };
 
@@ -39,11 +39,12 @@ export async function buildBillableSeason(attrs: {
 
 /** A draft (or, with issuedAt, an issued) invoice for an agreement of the apiary. */
 export async function buildInvoice(attrs: { agreement: { id: string }; apiary: Org; extraMoves?: number; issuedAt?: Date; createdBy?: { id: string } | null }) {
-  const sequelize = db();
-  const agreement = await loadAgreement(sequelize, attrs.apiary.id, attrs.agreement.id);
+  const database = builderDatabase();
+  const sequelize = database.sequelize;
+  const agreement = await loadAgreement(database, attrs.apiary.id, attrs.agreement.id);
   const id = await sequelize.transaction((transaction) =>
-    insertDraft(sequelize, agreement, { extraMoves: attrs.extraMoves ?? 0, createdBy: attrs.createdBy?.id ?? null }, transaction));
-  const number = attrs.issuedAt ? await issueDraft(sequelize, id, attrs.apiary.id, attrs.createdBy?.id ?? null, attrs.issuedAt) : null;
+    insertDraft(database, agreement, { extraMoves: attrs.extraMoves ?? 0, createdBy: attrs.createdBy?.id ?? null }, transaction));
+  const number = attrs.issuedAt ? await issueDraft(database, id, attrs.apiary.id, attrs.createdBy?.id ?? null, attrs.issuedAt) : null;
   const [row] = await sequelize.query<{ total_cents: number; deposit_cents: number }>('SELECT total_cents, deposit_cents FROM invoices WHERE id = :id', {
     replacements: { id }, type: QueryTypes.SELECT,
   });

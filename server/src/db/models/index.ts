@@ -26,6 +26,10 @@ import { defineInvoiceLine } from './invoice-line.model.js';
 import { defineCreditNote } from './credit-note.model.js';
 import { definePayment } from './payment.model.js';
 import { defineRefund } from './refund.model.js';
+// invoices and payments
+import { defineInvoiceNumberCounter } from './invoice-number-counter.model.js';
+import { defineProcessedWebhookEvent } from './processed-webhook-event.model.js';
+import { defineInvoiceReminder } from './invoice-reminder.model.js';
 import { defineIdempotencyKey } from './idempotency-key.model.js';
 import { associateModels } from '../associations.js';
 
@@ -56,6 +60,10 @@ export function defineModels(sequelize: Sequelize) {
     Payment: definePayment(sequelize),
     Refund: defineRefund(sequelize),
     IdempotencyKey: defineIdempotencyKey(sequelize),
+    // invoices and payments
+    InvoiceNumberCounter: defineInvoiceNumberCounter(sequelize),
+    ProcessedWebhookEvent: defineProcessedWebhookEvent(sequelize),
+    InvoiceReminder: defineInvoiceReminder(sequelize),
   };
   associateModels(models);
   return models;

@@ -27,6 +27,8 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
   declare voidedAt: Date | null;
   declare voidReason: string | null;
   declare createdBy: string | null;
+  /** The one checkout session still open at the payments service (a new one expires it). */
+  declare openCheckoutSessionId: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -58,6 +60,7 @@ export function defineInvoice(sequelize: Sequelize): typeof Invoice {
       voidedAt: { type: DataTypes.DATE, allowNull: true },
       voidReason: { type: DataTypes.TEXT, allowNull: true },
       createdBy: { type: DataTypes.UUID, allowNull: true },
+      openCheckoutSessionId: { type: DataTypes.TEXT, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -14,6 +14,8 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
   declare reference: string | null;
   declare receivedAt: Date | null;
   declare recordedBy: string | null;
+  /** How much of it went beyond what was owed when it arrived (to be refunded). */
+  declare overpaidCents: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -32,6 +34,7 @@ export function definePayment(sequelize: Sequelize): typeof Payment {
       reference: { type: DataTypes.TEXT, allowNull: true },
       receivedAt: { type: DataTypes.DATE, allowNull: true },
       recordedBy: { type: DataTypes.UUID, allowNull: true },
+      overpaidCents: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

@@ -79,3 +79,5 @@ export function createAlertsService(ctx: AppContext) {
     },
   };
 }
+
+export type AlertsService = ReturnType<typeof createAlertsService>;

@@ -1,13 +1,14 @@
 // A block's bloom forecast: degree days accumulated at its weather station from its start
 // date (or biofix), the season's curve extended by normals, the predicted date of each
 // crop stage with the range its thresholds imply, a suggested bloom window, the current
-// stage, and a frost warning when a forecast low is below that stage's critical temperature.
+// stage with its critical bud temperatures, and a frost warning when a forecast low is at
+// or below them (naming the stage, the table row and both sources).
 import { DateTime } from 'luxon';
 import type { AppContext } from '../../context.js';
 import type { BlockForecastDto, ForecastQuery } from '../../../../shared/schemas/blocks.js';
 import { accumulateDegreeDays } from '../../../../shared/domain/degree-days.js';
 import { currentStage, predictStages, suggestBloomWindow } from '../../../../shared/domain/bloom-forecast.js';
-import { frostRisk } from '../../../../shared/domain/frost.js';
+import { coldestLow, frostRisk } from '../../../../shared/domain/frost.js';
 import { fahrenheitToCelsius } from '../../../../shared/domain/units.js';
 import type { BlocksService } from '../blocks/blocks.service.js';
 import type { StationsService } from '../weather/stations.service.js';
@@ -47,16 +48,20 @@ export function createForecastService(ctx: AppContext, deps: { blocks: BlocksSer
       const stage = currentStage(cumulativeToDate, stageThresholds);
 
       let frost: BlockForecastDto['frost'] = null;
-      if (station && stage) {
+      let frostCritical: BlockForecastDto['frostCritical'] = null;
+      if (stage) {
         const critical = await deps.thresholds.frostForStage(block.crop, stage.stage);
+        const stageSource = thresholds.find((t) => t.stage === stage.stage)?.source ?? '';
         if (critical) {
-          const until = DateTime.fromISO(today).plus({ days: FROST_LOOKAHEAD_DAYS }).toISODate()!;
-          const lows = (await deps.stations.forecastLows(farmId, station.id, today)).filter((l) => l.day <= until);
           const kill10C = fahrenheitToCelsius(critical.kill10F);
           const kill90C = fahrenheitToCelsius(critical.kill90F);
-          const coldest = lows.reduce<(typeof lows)[number] | null>((min, l) => (!min || l.lowC < min.lowC ? l : min), null);
-          const risk = coldest ? frostRisk(coldest.lowC, { kill10C, kill90C }) : 'none';
-          if (coldest && risk !== 'none') frost = { risk, day: coldest.day, lowC: coldest.lowC, stageLabel: critical.stageLabel, kill10C, kill90C, source: critical.source };
+          frostCritical = { stage: stage.stage, stageName: stage.label, stageSource, stageLabel: critical.stageLabel, kill10C, kill90C, source: critical.source };
+          if (station) {
+            const until = DateTime.fromISO(today).plus({ days: FROST_LOOKAHEAD_DAYS }).toISODate()!;
+            const coldest = coldestLow((await deps.stations.forecastLows(farmId, station.id, today)).filter((l) => l.day <= until));
+            const risk = coldest ? frostRisk(coldest.lowC, { kill10C, kill90C }) : 'none';
+            if (coldest && risk !== 'none') frost = { ...frostCritical, risk, day: coldest.day, lowC: coldest.lowC };
+          }
         }
       }
 
@@ -66,7 +71,7 @@ export function createForecastService(ctx: AppContext, deps: { blocks: BlocksSer
         extension: temperatures?.extension ?? null,
         thresholds: thresholds.map((t) => ({ id: t.id, stage: t.stage, label: t.label, ddLow: t.ddLowF, ddHigh: t.ddHighF, source: t.source, farmOwn: t.farmId !== null })),
         predictions, suggestedWindow: suggestBloomWindow(predictions), currentStage: stage ? { stage: stage.stage, label: stage.label } : null,
-        cumulativeToDate, frost, notes,
+        cumulativeToDate, frost, frostCritical, notes,
       };
     },
   };

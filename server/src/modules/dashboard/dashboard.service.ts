@@ -8,6 +8,7 @@ import type { AuthUser } from '../auth/auth-user.js';
 import { Organization } from '../../db/models/organization.model.js';
 import { notFound } from '../../errors/http-errors.js';
 import { seasonClock, type SeasonClock } from './season-clock.js';
+import { coloniesNeeded } from '../../../../shared/domain/stocking.js';
 import { createSeasonExtras } from './season-extras.js';
 import type {
   BeekeeperDashboard,
@@ -52,12 +53,10 @@ export function createDashboardService(ctx: AppContext) {
       const clock = seasonClock(ctx.now(), org.timeZone, season);
       const w = { ...window(clock), farmId: org.id, season: clock.season };
       const blockRows = await select<{
-        id: string; name: string; crop: string; acres: number; colonies_per_acre: number; colonies_needed: number;
+        id: string; name: string; crop: string; acres: number; colonies_per_acre: number;
         bloom_start: string | null; full_bloom: string | null; petal_fall: string | null; planned: number; on_site: number;
       }>(
         `SELECT b.id, b.name, b.crop, b.area_m2 / ${SQUARE_METRES_PER_ACRE} AS acres, b.colonies_per_acre,
-           -- rounded first so 20 acres x 2 is 40, not 41 from a floating-point tail
-           ceil(round((b.area_m2 / ${SQUARE_METRES_PER_ACRE} * b.colonies_per_acre)::numeric, 6))::int AS colonies_needed,
            bw.bloom_start::text AS bloom_start, bw.full_bloom::text AS full_bloom, bw.petal_fall::text AS petal_fall,
            coalesce(p.planned, 0)::int AS planned, coalesce(p.on_site, 0)::int AS on_site
          FROM blocks b
@@ -78,7 +77,8 @@ export function createDashboardService(ctx: AppContext) {
         const bloomWindow = r.bloom_start ? { bloomStart: r.bloom_start, fullBloom: r.full_bloom, petalFall: r.petal_fall! } : null;
         return {
           id: r.id, name: r.name, crop: r.crop, acres: Number(r.acres), coloniesPerAcre: Number(r.colonies_per_acre),
-          coloniesNeeded: r.colonies_needed, coloniesPlanned: r.planned, coloniesOnSite: r.on_site,
+          // The one rule the block page uses too (shared/domain/stocking.ts).
+          coloniesNeeded: coloniesNeeded(Number(r.acres), Number(r.colonies_per_acre)), coloniesPlanned: r.planned, coloniesOnSite: r.on_site,
           bloomWindow, bloomState: bloomState(clock.today, bloomWindow),
         };
       });

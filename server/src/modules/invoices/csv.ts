@@ -1,13 +1,13 @@
-// CSV text (RFC 4180): fields quoted when they hold a comma, quote or line break; a cell
-// starting with = + - @ is prefixed with ' so spreadsheets do not run it as a formula.
+// CSV text (RFC 4180, csv-stringify): fields quoted when they hold a comma, quote or line
+// break; a cell starting with = + - @ is prefixed with ' so spreadsheets do not run it as
+// a formula.
+import { stringify } from 'csv-stringify/sync';
+
 type Cell = string | number;
 
-function cell(value: Cell): string {
-  let text = String(value);
-  if (typeof value === 'string' && /^[=+\-@]/.test(text)) text = `'${text}`;
-  return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
+const defused = (value: Cell): Cell => (typeof value === 'string' && /^[=+\-@]/.test(value) ? `'${value}` : value);
 
 export function toCsv(header: string[], rows: Cell[][]): string {
-  return [header, ...rows].map((row) => row.map(cell).join(',')).join('\r\n') + '\r\n';
+  // quoted_match: a lone CR or LF is quoted too, not only the CRLF that ends a record.
+  return stringify([header, ...rows.map((row) => row.map(defused))], { record_delimiter: 'windows', quoted_match: /[\r\n]/ });
 }

@@ -1,6 +1,5 @@
 // E-mail to the farm's billing contact (its billing address, else its owner) through the
 // job queue, with the invoice PDF attached.
-import { QueryTypes } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { InvoiceDto } from '../../../../shared/schemas/invoices.js';
 import { enqueueEmail } from '../../jobs/send-email.job.js';
@@ -9,14 +8,15 @@ import { renderInvoicePdf } from './invoice-pdf.js';
 import { queueNames } from '../../jobs/queue-names.js';
 import { createInvoicesService } from './invoices.service.js';
 
-export async function billingContactOf(ctx: AppContext, farmId: string): Promise<string | null> {
-  const [row] = await ctx.sequelize.query<{ email: string | null }>(
-    `SELECT coalesce(o.billing_email,
-       (SELECT u.email FROM users u WHERE u.organization_id = o.id AND u.role = 'owner' AND u.disabled_at IS NULL ORDER BY u.created_at LIMIT 1)) AS email
-     FROM organizations o WHERE o.id = :farmId`,
-    { replacements: { farmId }, type: QueryTypes.SELECT },
-  );
-  return row?.email ?? null;
+/** Where an organization's invoices go: its billing address, else its first active owner. */
+export async function billingContactOf(ctx: AppContext, organizationId: string): Promise<string | null> {
+  const org = await ctx.models.Organization.findByPk(organizationId, { attributes: ['id', 'billingEmail'] });
+  if (!org) return null;
+  if (org.billingEmail) return org.billingEmail;
+  const owner = await ctx.models.User.findOne({
+    where: { organizationId, role: 'owner', disabledAt: null }, attributes: ['email'], order: [['createdAt', 'ASC']],
+  });
+  return owner?.email ?? null;
 }
 
 export async function sendInvoiceEmail(ctx: AppContext, invoice: InvoiceDto) {
@@ -44,10 +44,8 @@ export async function sendInvoiceEmail(ctx: AppContext, invoice: InvoiceDto) {
 export async function startInvoiceEmailWorker(ctx: AppContext) {
   const service = createInvoicesService(ctx);
   await ctx.jobs.addWorker<{ invoiceId: string }>(queueNames.invoiceEmail, async ({ invoiceId }) => {
-    const [row] = await ctx.sequelize.query<{ apiary_id: string }>("SELECT apiary_id FROM invoices WHERE id = :invoiceId AND lifecycle = 'issued'", {
-      replacements: { invoiceId }, type: QueryTypes.SELECT,
-    });
-    if (!row) return;
-    await sendInvoiceEmail(ctx, await service.detail({ id: '', organizationId: row.apiary_id, organizationKind: 'apiary' }, invoiceId));
+    const invoice = await ctx.models.Invoice.findOne({ where: { id: invoiceId, lifecycle: 'issued' }, attributes: ['apiaryId'] });
+    if (!invoice) return;
+    await sendInvoiceEmail(ctx, await service.detail({ id: '', organizationId: invoice.apiaryId, organizationKind: 'apiary' }, invoiceId));
   });
 }

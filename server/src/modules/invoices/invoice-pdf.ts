@@ -65,7 +65,7 @@ export function renderInvoicePdf(invoice: InvoiceDto, balanceDueDays?: number): 
     doc.moveDown(2);
     doc.font('WorkSans-SemiBold').text('Payment terms', columns.description);
     doc.font('WorkSans').fontSize(10);
-    doc.text(`Deposit ${money(invoice.depositCents)} due on delivery: ${day(invoice.depositDueOn, zone, 'at delivery')}.`);
+    doc.text(`Deposit ${money(invoice.depositCents)} due ${day(invoice.depositDueOn, zone, 'at delivery')}.`);
     doc.text(`Balance ${money(invoice.netTotalCents - invoice.depositCents)} due ${day(invoice.balanceDueOn, zone, `${balanceDueDays ?? 'the agreed number of'} days after pickup`)}.`);
     doc.text(`Late interest as agreed: ${invoice.lateInterestBpPerMonth / 100}% per started month on amounts overdue (simple interest).`);
     if (invoice.accruedInterestCents > 0) doc.text(`Late interest accrued to date: ${money(invoice.accruedInterestCents)}.`);

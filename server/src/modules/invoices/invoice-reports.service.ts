@@ -1,13 +1,15 @@
 // What the money looks like from each side: the beekeeper's receivables (by grower, by
 // status, season totals, expected vs received by week) and the grower's payables with the
 // pollination cost per acre of each block; CSV exports of invoices and payments.
-import { QueryTypes } from 'sequelize';
 import { DateTime } from 'luxon';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
 import type { InvoiceSummaryDto, PayablesDto, ReceivablesDto } from '../../../../shared/schemas/invoices.js';
-import { selectInvoices, toInvoiceSummary, formatInvoiceNumber } from './invoice-queries.js';
+import { selectInvoices, selectMoneyMovements, selectBlockCharges } from './invoices.queries.js';
+import { toInvoiceSummary, formatInvoiceNumber, refundedByPayment, refundedOf } from './invoice-summary.js';
 import { toCsv } from './csv.js';
+import { labelOf } from '../../../../shared/labels/label-set.js';
+import { invoiceStatusSet, paymentMethodSet, paymentStateSet } from '../../../../shared/labels/invoices.js';
 
 const SQUARE_METRES_PER_ACRE = 4046.8564224;
 const live = (s: InvoiceSummaryDto) => s.status !== 'draft' && s.status !== 'void';
@@ -17,9 +19,11 @@ function weekStart(at: DateTime): string {
 }
 
 export function createInvoiceReportsService(ctx: AppContext) {
+  const { Organization, Payment, Refund, Invoice } = ctx.models;
+
   async function liveSummaries(user: AuthUser, season?: number) {
     const asOf = ctx.now();
-    const all = (await selectInvoices(ctx, user)).map((row) => toInvoiceSummary(row, asOf));
+    const all = (await selectInvoices(ctx.sequelize, user)).map((row) => toInvoiceSummary(row, asOf));
     const seasons = [...new Set(all.map((s) => s.season))].sort();
     const chosen = season ?? seasons.at(-1) ?? DateTime.fromJSDate(asOf).year;
     return { summaries: all.filter((s) => live(s) && s.season === chosen), season: chosen };
@@ -36,10 +40,8 @@ export function createInvoiceReportsService(ctx: AppContext) {
 
   async function receivables(user: AuthUser, seasonWanted?: number): Promise<ReceivablesDto & { season: number }> {
     const { summaries, season } = await liveSummaries(user, seasonWanted);
-    const [org] = await ctx.sequelize.query<{ time_zone: string; currency: string }>(
-      'SELECT time_zone, trim(currency) AS currency FROM organizations WHERE id = :id', { replacements: { id: user.organizationId }, type: QueryTypes.SELECT },
-    );
-    const zone = org.time_zone;
+    const org = await Organization.findByPk(user.organizationId!, { attributes: ['timeZone', 'currency'], rejectOnEmpty: true });
+    const zone = org.timeZone;
     const byGrower = new Map<string, ReceivablesDto['byGrower'][number]>();
     const byStatus = new Map<string, ReceivablesDto['byStatus'][number]>();
     const weeks = new Map<string, { expectedCents: number; receivedCents: number }>();
@@ -56,19 +58,12 @@ export function createInvoiceReportsService(ctx: AppContext) {
       if (s.balanceDueOn) week(weekStart(DateTime.fromISO(s.balanceDueOn, { zone }))).expectedCents += s.netTotalCents - deposit;
     }
     if (summaries.length > 0) {
-      const money = await ctx.sequelize.query<{ at: Date; cents: number }>(
-        `SELECT coalesce(p.received_at, p.created_at) AS at, p.amount_cents AS cents FROM payments p
-           WHERE p.invoice_id IN (:ids) AND p.state = 'succeeded'
-         UNION ALL
-         SELECT r.created_at, -r.amount_cents FROM refunds r JOIN payments p ON p.provider_payment_id = r.provider_payment_id AND p.state = 'succeeded'
-           WHERE r.invoice_id IN (:ids) AND r.state = 'succeeded'`,
-        { replacements: { ids: summaries.map((s) => s.id) }, type: QueryTypes.SELECT },
-      );
+      const money = await selectMoneyMovements(ctx.sequelize, summaries.map((s) => s.id));
       for (const m of money) week(weekStart(DateTime.fromJSDate(new Date(m.at), { zone }))).receivedCents += m.cents;
     }
     return {
       season,
-      currency: summaries[0]?.currency ?? org.currency,
+      currency: summaries[0]?.currency ?? org.currency.trim(),
       seasonTotals: totalsOf(summaries),
       byGrower: [...byGrower.values()].sort((a, b) => b.outstandingCents - a.outstandingCents || a.farmName.localeCompare(b.farmName)),
       byStatus: [...byStatus.values()],
@@ -80,13 +75,7 @@ export function createInvoiceReportsService(ctx: AppContext) {
     const { summaries, season } = await liveSummaries(user, seasonWanted);
     const blocks = new Map<string, PayablesDto['blocks'][number]>();
     if (summaries.length > 0) {
-      const rows = await ctx.sequelize.query<{ invoice_id: string; block_id: string; block_name: string; area_m2: number; colonies: number; charged_cents: number }>(
-        `SELECT l.invoice_id, b.id AS block_id, b.name AS block_name, b.area_m2,
-           sum(CASE WHEN l.kind <> 'extra-moves' THEN l.quantity ELSE 0 END)::int AS colonies, sum(l.amount_cents)::int AS charged_cents
-         FROM invoice_lines l JOIN placements p ON p.id = l.placement_id JOIN drop_sites d ON d.id = p.drop_site_id JOIN blocks b ON b.id = d.block_id
-         WHERE l.invoice_id IN (:ids) GROUP BY l.invoice_id, b.id, b.name, b.area_m2`,
-        { replacements: { ids: summaries.map((s) => s.id) }, type: QueryTypes.SELECT },
-      );
+      const rows = await selectBlockCharges(ctx.sequelize, summaries.map((s) => s.id));
       // Each invoice's net total (tax, extra moves and credits included) is shared among its
       // blocks in proportion to what their colonies were charged.
       for (const s of summaries) {
@@ -113,29 +102,34 @@ export function createInvoiceReportsService(ctx: AppContext) {
 
   async function invoicesCsv(user: AuthUser): Promise<string> {
     const asOf = ctx.now();
-    const rows = (await selectInvoices(ctx, user)).map((r) => toInvoiceSummary(r, asOf));
+    const rows = (await selectInvoices(ctx.sequelize, user)).map((r) => toInvoiceSummary(r, asOf));
     return toCsv(
       ['number', 'status', 'season', 'grower', 'beekeeper', 'currency', 'total', 'credited', 'net_total', 'paid', 'outstanding', 'deposit', 'deposit_due_on', 'balance_due_on', 'late_interest_accrued', 'issued_at'],
-      rows.map((s) => [s.number ?? '', s.status, s.season, s.farm.name, s.apiary.name, s.currency, decimal(s.totalCents), decimal(s.creditedCents), decimal(s.netTotalCents),
+      rows.map((s) => [s.number ?? '', labelOf(invoiceStatusSet, s.status), s.season, s.farm.name, s.apiary.name, s.currency, decimal(s.totalCents), decimal(s.creditedCents), decimal(s.netTotalCents),
         decimal(s.paidCents), decimal(s.outstandingCents), decimal(s.depositCents), s.depositDueOn ?? '', s.balanceDueOn ?? '', decimal(s.accruedInterestCents), s.issuedAt ?? '']),
     );
   }
 
   async function paymentsCsv(user: AuthUser): Promise<string> {
-    const visible = await selectInvoices(ctx, user, "i.lifecycle <> 'draft'");
-    if (visible.length === 0) return toCsv(['invoice', 'grower', 'method', 'state', 'currency', 'amount', 'refunded', 'reference', 'received_at'], []);
-    const rows = await ctx.sequelize.query<{ invoice_number: number; farm_name: string; method: string; state: string; currency: string; amount_cents: number; refunded_cents: number; reference: string | null; at: Date }>(
-      `SELECT i.number AS invoice_number, f.name AS farm_name, p.method, p.state, trim(p.currency) AS currency, p.amount_cents, p.reference,
-         coalesce(p.received_at, p.created_at) AS at,
-         coalesce((SELECT sum(r.amount_cents) FROM refunds r WHERE r.provider_payment_id = p.provider_payment_id AND r.state = 'succeeded'), 0)::int AS refunded_cents
-       FROM payments p JOIN invoices i ON i.id = p.invoice_id JOIN organizations f ON f.id = i.farm_id
-       WHERE p.invoice_id IN (:ids) ORDER BY at, p.id`,
-      { replacements: { ids: visible.map((v) => v.id) }, type: QueryTypes.SELECT },
-    );
-    return toCsv(
-      ['invoice', 'grower', 'method', 'state', 'currency', 'amount', 'refunded', 'reference', 'received_at'],
-      rows.map((r) => [formatInvoiceNumber(r.invoice_number) ?? '', r.farm_name, r.method, r.state, r.currency, decimal(r.amount_cents), decimal(r.refunded_cents), r.reference ?? '', new Date(r.at).toISOString()]),
-    );
+    const header = ['invoice', 'grower', 'method', 'state', 'currency', 'amount', 'refunded', 'reference', 'received_at'];
+    const visible = await selectInvoices(ctx.sequelize, user, { issuedOrVoidOnly: true });
+    if (visible.length === 0) return toCsv(header, []);
+    const ids = visible.map((v) => v.id);
+    const [payments, refunds] = await Promise.all([
+      Payment.findAll({
+        where: { invoiceId: ids },
+        include: [{ model: Invoice, as: 'invoice', attributes: ['number'], include: [{ model: Organization, as: 'farm', attributes: ['name'] }] }],
+      }),
+      Refund.findAll({ where: { invoiceId: ids }, attributes: ['providerPaymentId', 'state', 'amountCents'] }),
+    ]);
+    const refunded = refundedByPayment(refunds);
+    const at = (p: (typeof payments)[number]) => p.receivedAt ?? p.createdAt;
+    payments.sort((a, b) => at(a).getTime() - at(b).getTime() || a.id.localeCompare(b.id));
+    return toCsv(header, payments.map((p) => {
+      const invoice = p.get('invoice') as { number: number | null; farm: { name: string } };
+      return [formatInvoiceNumber(invoice.number) ?? '', invoice.farm.name, labelOf(paymentMethodSet, p.method), labelOf(paymentStateSet, p.state), p.currency.trim(), decimal(p.amountCents), decimal(refundedOf(p, refunded)),
+        p.reference ?? '', at(p).toISOString()];
+    }));
   }
 
   return { receivables, payables, invoicesCsv, paymentsCsv };

@@ -1,34 +1,32 @@
 // Overdue reminders: a pg-boss schedule runs this every hour; each overdue invoice gets at
 // most one reminder per its agreed interval (the log row and the invoice lock make a second
 // run, or a second server, skip it).
-import { QueryTypes } from 'sequelize';
+import { Op } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import { queueNames } from '../../jobs/queue-names.js';
 import { enqueueEmail } from '../../jobs/send-email.job.js';
 import { formatMoney } from '../../../../shared/domain/money.js';
-import { selectIssuedInvoices, toInvoiceSummary, formatInvoiceNumber } from './invoice-queries.js';
+import { selectIssuedInvoices } from './invoices.queries.js';
+import { toInvoiceSummary, formatInvoiceNumber } from './invoice-summary.js';
 import { billingContactOf } from './invoice-mail.js';
 
 /** Sends the reminders due now; answers how many were sent. */
 export async function sendOverdueReminders(ctx: AppContext): Promise<number> {
   const asOf = ctx.now();
   let sent = 0;
-  for (const row of await selectIssuedInvoices(ctx)) {
+  const { Invoice, InvoiceReminder } = ctx.models;
+  for (const row of await selectIssuedInvoices(ctx.sequelize)) {
     const summary = toInvoiceSummary(row, asOf);
     if (summary.status !== 'overdue') continue;
     const to = await billingContactOf(ctx, row.farm_id);
     if (!to) continue;
     const didSend = await ctx.sequelize.transaction(async (transaction) => {
-      const locked = await ctx.sequelize.query('SELECT id FROM invoices WHERE id = :id FOR UPDATE SKIP LOCKED', { replacements: { id: row.id }, type: QueryTypes.SELECT, transaction });
-      if (locked.length === 0) return false;
-      const [recent] = await ctx.sequelize.query<{ n: number }>(
-        `SELECT count(*)::int AS n FROM invoice_reminders WHERE invoice_id = :id AND sent_at > :asOf::timestamptz - make_interval(days => :days)`,
-        { replacements: { id: row.id, asOf: asOf.toISOString(), days: row.reminder_interval_days }, type: QueryTypes.SELECT, transaction },
-      );
-      if (recent.n > 0) return false;
-      await ctx.sequelize.query('INSERT INTO invoice_reminders (invoice_id, sent_at, sent_to, overdue_cents) VALUES (:id, :asOf, :to, :cents)', {
-        replacements: { id: row.id, asOf: asOf.toISOString(), to, cents: summary.outstandingCents }, transaction,
-      });
+      const locked = await Invoice.findOne({ where: { id: row.id }, attributes: ['id'], lock: transaction.LOCK.UPDATE, skipLocked: true, transaction });
+      if (!locked) return false;
+      const since = new Date(asOf.getTime() - row.reminder_interval_days * 86_400_000);
+      const recent = await InvoiceReminder.count({ where: { invoiceId: row.id, sentAt: { [Op.gt]: since } }, transaction });
+      if (recent > 0) return false;
+      await InvoiceReminder.create({ invoiceId: row.id, sentAt: asOf, sentTo: to, overdueCents: summary.outstandingCents }, { transaction });
       const money = (c: number) => formatMoney(c, row.currency);
       const number = formatInvoiceNumber(row.number);
       await enqueueEmail(ctx.jobs, {

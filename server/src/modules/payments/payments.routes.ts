@@ -11,10 +11,14 @@ import { createPaymentsService } from './payments.service.js';
 import { createPaymentsController } from './payments.controller.js';
 import { createInvoicesService } from '../invoices/invoices.service.js';
 import { createInvoiceReportsService } from '../invoices/invoice-reports.service.js';
-import { paymentsWebhookHandler } from './payments-webhook.js';
+import { createPaymentEventsService } from './payment-events.service.js';
+
+function controllerFor(ctx: AppContext) {
+  return createPaymentsController(ctx, createPaymentsService(ctx), createPaymentEventsService(ctx), createInvoicesService(ctx), createInvoiceReportsService(ctx));
+}
 
 export function paymentsRoutes(ctx: AppContext): Router {
-  const c = createPaymentsController(createPaymentsService(ctx), createInvoicesService(ctx), createInvoiceReportsService(ctx));
+  const c = controllerFor(ctx);
   const router = Router();
   router.post('/checkout', allow(policy, 'payOnline'), validate({ body: checkoutSchema }), c.checkout);
   router.post('/', allow(policy, 'recordManual'), validate({ body: manualPaymentSchema }), c.recordManual);
@@ -25,7 +29,8 @@ export function paymentsRoutes(ctx: AppContext): Router {
 
 /** Mounted under /api/webhooks before the JSON parser: the signature is checked on the raw body. */
 export function paymentsWebhookRoutes(ctx: AppContext): Router {
+  const c = controllerFor(ctx);
   const router = Router();
-  router.post('/payments', raw({ type: 'application/json', limit: '1mb' }), paymentsWebhookHandler(ctx));
+  router.post('/payments', raw({ type: 'application/json', limit: '1mb' }), c.webhook);
   return router;
 }

@@ -1,20 +1,19 @@
 // Photos from the field: one image per upload (JPEG, PNG or WebP, at most 8 MB), kept in
 // the database with the placement. The type is checked from the file's first bytes, not
 // only from what the browser says.
-import multer from 'multer';
+import { singleFileUpload } from '../../middleware/upload.js';
 import { badRequest } from '../../errors/http-errors.js';
 
 export const maxPhotoBytes = 8 * 1024 * 1024;
 const allowedTypes = ['image/jpeg', 'image/png', 'image/webp'];
 
-export const photoUpload = multer({
-  storage: multer.memoryStorage(),
-  limits: { fileSize: maxPhotoBytes, files: 1 },
+export const photoUpload = singleFileUpload('photo', {
+  maxBytes: maxPhotoBytes,
   fileFilter: (_req, file, done) => {
     if (allowedTypes.includes(file.mimetype)) return done(null, true);
     done(badRequest('A photo must be a JPEG, PNG or WebP image.', { photo: 'must be a JPEG, PNG or WebP image' }));
   },
-}).single('photo');
+});
 
 /** The image type the bytes really are, or null. */
 export function sniffImageType(data: Buffer): string | null {

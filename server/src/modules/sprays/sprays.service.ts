@@ -16,6 +16,8 @@ import { exposureEnd, sprayWindow } from '../conflicts/spray-window.js';
 import { recheckSprayIn } from '../alerts/alert-recheck.js';
 import { sprayChanged } from '../alerts/conflict-rechecks.js';
 import { blocksOfSprays, bufferArea } from './sprays.queries.js';
+import { labelOf } from '../../../../shared/labels/label-set.js';
+import { sprayStateSet } from '../../../../shared/labels/sprays.js';
 
 type Window = SprayPlan['plannedWindow'];
 const windowOf = (from: Date, to: Date): Window => [{ value: from, inclusive: true }, { value: to, inclusive: false }];
@@ -127,7 +129,7 @@ export function createSpraysService(ctx: AppContext) {
       const farmId = farmOf(user);
       return save(async (transaction) => {
         const plan = await lockOwn(farmId, id, transaction);
-        if (plan.state !== 'planned') throw wrongState(`This spray is ${plan.state}; only a planned spray can be changed.`);
+        if (plan.state !== 'planned') throw wrongState(`This spray is ${labelOf(sprayStateSet, plan.state).toLowerCase()}; only a planned spray can be changed.`);
         const blockIds = patch.blockIds ? await requireOwnBlocks(farmId, patch.blockIds, transaction) : null;
         const current = plan.plannedWindow;
         const from = patch.startsAt ? new Date(patch.startsAt) : current[0].value;
@@ -155,7 +157,7 @@ export function createSpraysService(ctx: AppContext) {
       const farmId = farmOf(user);
       return save(async (transaction) => {
         const plan = await lockOwn(farmId, id, transaction);
-        if (plan.state !== 'planned') throw wrongState(`This spray is ${plan.state}; only a planned spray can be recorded as applied.`);
+        if (plan.state !== 'planned') throw wrongState(`This spray is ${labelOf(sprayStateSet, plan.state).toLowerCase()}; only a planned spray can be recorded as applied.`);
         const appliedAt = new Date(input.appliedAt);
         if (appliedAt.getTime() > ctx.now().getTime() + 5 * 60_000) throw badRequest('Please check: appliedAt.', { appliedAt: 'cannot be in the future' });
         const window = sprayWindow({ startsAt: plan.plannedWindow[0].value, endsAt: plan.plannedWindow[1].value, appliedAt });
@@ -171,10 +173,12 @@ export function createSpraysService(ctx: AppContext) {
       const farmId = farmOf(user);
       return save(async (transaction) => {
         const plan = await lockOwn(farmId, id, transaction);
-        if (plan.state !== 'planned') throw wrongState(`This spray is ${plan.state}; only a planned spray can be cancelled.`);
+        if (plan.state !== 'planned') throw wrongState(`This spray is ${labelOf(sprayStateSet, plan.state).toLowerCase()}; only a planned spray can be cancelled.`);
         await plan.update({ state: 'cancelled' }, { transaction });
         return checkAndAnswer(farmId, id, transaction);
       });
     },
   };
 }
+
+export type SpraysService = ReturnType<typeof createSpraysService>;

@@ -7,6 +7,7 @@ import { DateTime } from 'luxon';
 import { fahrenheitToCelsius } from '../../../../shared/domain/units.js';
 import { TEMPERATURE_BOUNDS_C, type TemperatureUnit, type UploadLineError } from '../../../../shared/schemas/weather.js';
 import { badRequest } from '../../errors/http-errors.js';
+import { inTradeYears, tradeYears } from '../../../../shared/schemas/common.js';
 
 export interface ParsedDay {
   line: number;
@@ -69,6 +70,10 @@ function checkDate(text: string, line: number, seen: Map<string, number>, out: U
   const date = /^\d{4}-\d{2}-\d{2}$/.test(text) ? DateTime.fromISO(text, { zone: 'UTC' }) : null;
   if (!date?.isValid) {
     out.push({ line, field: 'date', message: `"${text}" is not a date (YYYY-MM-DD)` });
+    return null;
+  }
+  if (!inTradeYears(text)) {
+    out.push({ line, field: 'date', message: `${text} is not between ${tradeYears.from} and ${tradeYears.to}` });
     return null;
   }
   const firstLine = seen.get(text);
