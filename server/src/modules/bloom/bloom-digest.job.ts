@@ -5,6 +5,11 @@ import type { AppContext } from '../../context.js';
 import { queueNames } from '../../jobs/queue-names.js';
 import { enqueueEmail } from '../../jobs/send-email.job.js';
 import { advanceDigestMark, blocksFollowedBy } from './bloom.queries.js';
+import { DateTime } from 'luxon';
+import { cropSet } from '../../../../shared/labels/crops.js';
+import { labelOf } from '../../../../shared/labels/label-set.js';
+
+const day = (iso: string) => DateTime.fromISO(iso).toFormat('ccc d LLL yyyy');
 
 export async function sendBloomDigest(ctx: AppContext, apiaryId: string): Promise<number> {
   const { Block, BloomDigestMark, BloomWindow, Organization, User } = ctx.models;
@@ -21,7 +26,7 @@ export async function sendBloomDigest(ctx: AppContext, apiaryId: string): Promis
     attributes: ['email'], where: { organizationId: apiaryId, role: ['owner', 'manager'], disabledAt: null }, order: [['email', 'ASC']],
   });
   const lines = revisions.map((r) =>
-    `- ${r.block!.farm!.name}, ${r.block!.name} (${r.block!.crop}): bloom from ${r.bloomStart}${r.fullBloom ? `, full bloom ${r.fullBloom}` : ''}, petal fall ${r.petalFall}` +
+    `- ${r.block!.farm!.name}, ${r.block!.name} (${labelOf(cropSet, r.block!.crop)}): bloom from ${day(r.bloomStart)}${r.fullBloom ? `, full bloom ${day(r.fullBloom)}` : ''}, petal fall ${day(r.petalFall)}` +
     (r.confidenceNote ? `\n  Note: ${r.confidenceNote}` : ''));
   const text = `Growers revised the bloom windows of blocks you hold or offered colonies for:\n\n${lines.join('\n')}\n\nOpen Pollenpact for the details: ${ctx.config.publicUrl}\n`;
   for (const { email } of recipients) {
