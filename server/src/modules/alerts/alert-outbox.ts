@@ -23,6 +23,6 @@ export async function queueAlertPublication(ctx: AppContext, transaction: Transa
 export async function queueAlertEmails(ctx: AppContext, transaction: Transaction, alert: AlertDto): Promise<number> {
   const people = await alertRecipients(ctx, alert, transaction);
   const email = alertEmail(ctx, alert);
-  for (const to of people) await ctx.jobs.send(queueNames.sendEmail, { to, ...email }, { transaction: { sequelize: ctx.sequelize, transaction } });
+  await ctx.jobs.sendAll(queueNames.sendEmail, people.map((to) => ({ to, ...email })), { transaction: { sequelize: ctx.sequelize, transaction } });
   return people.length;
 }
