@@ -129,9 +129,15 @@ export interface PlacementToBillRow {
 export function selectPlacementsToBill(sequelize: Sequelize, agreementId: string, transaction?: Transaction): Promise<PlacementToBillRow[]> {
   return queryRows<PlacementToBillRow>(
     sequelize,
-    `SELECT p.id, p.colonies_delivered, p.delivered_at, p.picked_up_at, d.name AS site_name, b.name AS block_name,
+    // Times sent from the field are the phone's recorded times (never in the future, see
+    // shared/domain/recorded-at.ts); a phone clock far behind cannot bill before the agreement was made.
+    `SELECT p.id, p.colonies_delivered,
+       CASE WHEN p.delivered_received_at IS NULL THEN p.delivered_at ELSE greatest(p.delivered_at, ag.created_at) END AS delivered_at,
+       CASE WHEN p.picked_up_received_at IS NULL THEN p.picked_up_at ELSE greatest(p.picked_up_at, ag.created_at) END AS picked_up_at,
+       d.name AS site_name, b.name AS block_name,
        sc.colonies_in_group, sc.frames_of_bees
      FROM placements p
+     JOIN agreements ag ON ag.id = p.agreement_id
      JOIN drop_sites d ON d.id = p.drop_site_id
      JOIN blocks b ON b.id = d.block_id
      LEFT JOIN LATERAL (SELECT s.colonies_in_group, s.frames_of_bees FROM strength_checks s WHERE s.placement_id = p.id
