@@ -24,7 +24,7 @@ describe('API error answers', () => {
       .set('X-CSRF-Token', client.csrfToken)
       .send('{"email": "a@b.test", "password": ');
     expect(res.status).toBe(400);
-    expect(res.body).toEqual({ error: { code: 'malformed_json', message: expect.any(String) } });
+    expect(res.body).toEqual({ error: { code: 'malformed_json', message: expect.any(String), fields: { body: 'is not valid JSON' } } });
   });
 
   it('answers a state-changing request without a CSRF token with 403 in the error shape', async () => {

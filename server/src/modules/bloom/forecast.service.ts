@@ -4,6 +4,7 @@
 // stage with its critical bud temperatures, and a frost warning when a forecast low is at
 // or below them (naming the stage, the table row and both sources).
 import { DateTime } from 'luxon';
+import { badRequest } from '../../errors/http-errors.js';
 import type { AppContext } from '../../context.js';
 import type { BlockForecastDto, ForecastQuery } from '../../../../shared/schemas/blocks.js';
 import { accumulateDegreeDays } from '../../../../shared/domain/degree-days.js';
@@ -34,6 +35,7 @@ export function createForecastService(ctx: AppContext, deps: { blocks: BlocksSer
       const method = query.method ?? first?.method ?? 'average';
       const lowerF = query.lowerF ?? first?.baseF ?? 43;
       const upperF = query.upperF ?? first?.upperF ?? null;
+      if (upperF !== null && upperF <= lowerF) throw badRequest('The upper threshold must be above the lower one.', { upperF: `must be above the lower threshold (${lowerF} °F)` });
       const notes: string[] = [];
       if (!thresholds.length) notes.push(`No stage thresholds are known for ${block.crop}: add your farm's own to get predicted stages.`);
       if (!station) notes.push('Choose a weather station for this block to accumulate degree days.');
