@@ -25,7 +25,7 @@ describe('a server killed between the alert commit and its publication', () => {
     env = { DATABASE_URL: t.databaseUrl, SMTP_PORT: String(t.sink.smtpPort), MAIL_SINK_URL: `http://127.0.0.1:${t.sink.httpPort}` };
     grower = await signIn(t.baseUrl, world.growerEmail);
     keeper = await signIn(t.baseUrl, world.keeperEmail);
-  }, 90_000);
+  }, 180_000);
   afterAll(async () => {
     for (const s of sockets) s.disconnect();
     await server?.stop();
@@ -53,10 +53,10 @@ describe('a server killed between the alert commit and its publication', () => {
     expect(mailsFor(world.growerEmail)).toEqual([]);
 
     server = await startServerProcess(env, port);
-    const forKeeper = await eventually(() => kEvents.find((e) => e.event === 'alert:raised'), 20_000);
+    const forKeeper = await eventually(() => kEvents.find((e) => e.event === 'alert:raised'), 45_000);
     expect(forKeeper.alert).toMatchObject({ id: alerts[0].id, apiary: { id: world.apiaryId }, spray: { productName: product } });
-    await eventually(() => gEvents.find((e) => e.event === 'alert:raised' && e.alert.id === alerts[0].id), 20_000);
-    await eventually(() => mailsFor(world.growerEmail).length && mailsFor(world.keeperEmail).length, 20_000);
+    await eventually(() => gEvents.find((e) => e.event === 'alert:raised' && e.alert.id === alerts[0].id), 45_000);
+    await eventually(() => mailsFor(world.growerEmail).length && mailsFor(world.keeperEmail).length, 45_000);
 
     // Give any second delivery time to show up, then count.
     await new Promise((r) => setTimeout(r, 3_000));
@@ -65,5 +65,5 @@ describe('a server killed between the alert commit and its publication', () => {
     expect(mailsFor(world.growerEmail)).toHaveLength(1);
     expect(mailsFor(world.keeperEmail)).toHaveLength(1);
     expect(mailsFor(world.keeperEmail)[0].text).toMatch(/label is the law/);
-  }, 120_000);
+  }, 240_000);
 });

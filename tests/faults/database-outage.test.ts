@@ -29,7 +29,7 @@ describe('a database outage during a spray save', () => {
     viaProxy.port = String(proxy.port);
     server = await startServerProcess({ DATABASE_URL: viaProxy.toString(), SMTP_PORT: String(t.sink.smtpPort), MAIL_SINK_URL: `http://127.0.0.1:${t.sink.httpPort}` });
     grower = await signIn(server.baseUrl, world.growerEmail);
-  }, 90_000);
+  }, 180_000);
   afterAll(async () => {
     await server?.stop();
     await proxy?.close();
@@ -68,5 +68,5 @@ describe('a database outage during a spray save', () => {
     const saved = await withSession(server.baseUrl, grower).post('/api/sprays').send(world.conflictingSpray(0, product));
     expect(saved.status).toBe(201);
     expect(await countOf(product)).toEqual({ sprays: 1, alerts: 1 });
-  }, 60_000);
+  }, 120_000);
 });

@@ -22,7 +22,7 @@ describe('alerts across two server processes', () => {
     other = await startServerProcess({ DATABASE_URL: t.databaseUrl, SMTP_PORT: String(t.sink.smtpPort), MAIL_SINK_URL: `http://127.0.0.1:${t.sink.httpPort}` });
     grower = await signIn(t.baseUrl, world.growerEmail);
     keeper = await signIn(t.baseUrl, world.keeperEmail);
-  }, 90_000);
+  }, 180_000);
   afterAll(async () => {
     for (const s of sockets) s.disconnect();
     await other?.stop();

@@ -44,7 +44,7 @@ export async function startServerProcess(env: Record<string, string>, port?: num
   child.stderr!.on('data', (d) => (output += d));
   const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((resolve) => child.once('exit', (code, signal) => resolve({ code, signal })));
   await new Promise<void>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`server process did not start within 60 s:\n${output}`)), 60_000);
+    const timer = setTimeout(() => reject(new Error(`server process did not start within 120 s:\n${output}`)), 120_000);
     const onData = () => {
       if (!/Pollenpact is ready/.test(output)) return;
       clearTimeout(timer);
