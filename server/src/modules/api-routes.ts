@@ -8,7 +8,7 @@ import { healthRoutes } from './health/health.routes.js';
 import { authRoutes } from './auth/auth.routes.js';
 import { requestsRoutes } from './requests/requests.routes.js';
 import { yardsRoutes } from './yards/yards.routes.js';
-import { commitmentsRoutes } from './commitments/commitments.routes.js';
+import { commitmentOfferRoutes, commitmentsRoutes } from './commitments/commitments.routes.js';
 import { agreementsRoutes } from './agreements/agreements.routes.js';
 import { placementsRoutes } from './placements/placements.routes.js';
 import { calendarRoutes } from './calendar/calendar.routes.js';
@@ -41,6 +41,7 @@ export function apiRoutes(ctx: AppContext, passport: Passport, csrf: Csrf): Rout
   router.use('/weather', weatherRoutes(ctx));
   router.use('/bloom', bloomRoutes(ctx));
   router.use('/requests', requestsRoutes(ctx));
+  router.use('/requests', commitmentOfferRoutes(ctx));
   router.use('/yards', yardsRoutes(ctx));
   router.use('/commitments', commitmentsRoutes(ctx));
   router.use('/agreements', agreementsRoutes(ctx));

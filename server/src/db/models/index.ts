@@ -31,6 +31,18 @@ import { defineInvoiceNumberCounter } from './invoice-number-counter.model.js';
 import { defineProcessedWebhookEvent } from './processed-webhook-event.model.js';
 import { defineInvoiceReminder } from './invoice-reminder.model.js';
 import { defineIdempotencyKey } from './idempotency-key.model.js';
+// requests, commitments, agreements, placements and yards
+import { defineYard } from './yard.model.js';
+import { defineHiveRequest } from './hive-request.model.js';
+import { defineHiveRequestBlock } from './hive-request-block.model.js';
+import { defineDropSite } from './drop-site.model.js';
+import { defineHiveRequestEvent } from './hive-request-event.model.js';
+import { defineCommitment } from './commitment.model.js';
+import { defineAgreement } from './agreement.model.js';
+import { defineAgreementAmendment } from './agreement-amendment.model.js';
+import { definePlacement } from './placement.model.js';
+import { definePlacementPhoto } from './placement-photo.model.js';
+import { defineStrengthCheck } from './strength-check.model.js';
 import { associateModels } from '../associations.js';
 
 export function defineModels(sequelize: Sequelize) {
@@ -64,6 +76,18 @@ export function defineModels(sequelize: Sequelize) {
     InvoiceNumberCounter: defineInvoiceNumberCounter(sequelize),
     ProcessedWebhookEvent: defineProcessedWebhookEvent(sequelize),
     InvoiceReminder: defineInvoiceReminder(sequelize),
+    // requests, commitments, agreements, placements and yards
+    Yard: defineYard(sequelize),
+    HiveRequest: defineHiveRequest(sequelize),
+    HiveRequestBlock: defineHiveRequestBlock(sequelize),
+    DropSite: defineDropSite(sequelize),
+    HiveRequestEvent: defineHiveRequestEvent(sequelize),
+    Commitment: defineCommitment(sequelize),
+    Agreement: defineAgreement(sequelize),
+    AgreementAmendment: defineAgreementAmendment(sequelize),
+    Placement: definePlacement(sequelize),
+    PlacementPhoto: definePlacementPhoto(sequelize),
+    StrengthCheck: defineStrengthCheck(sequelize),
   };
   associateModels(models);
   return models;

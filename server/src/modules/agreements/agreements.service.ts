@@ -4,94 +4,92 @@ import type { Transaction } from 'sequelize';
 import { UniqueConstraintError } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
+import type { Agreement } from '../../db/models/agreement.model.js';
 import { conflict, forbidden, notFound, wrongState } from '../../errors/http-errors.js';
-import { agreementClauses, type AgreementClause } from '../../../../shared/domain/agreement-clauses.js';
-import type { AgreementDto, AgreementState, AmendmentBody, AmendmentChanges, AmendmentDto } from '../../../../shared/schemas/agreements.js';
-import { execute, iso, parseRange, selectOne, selectRows } from '../requests/sql.js';
+import { rangeBounds, timeRange } from '../../db/time-range.js';
+import { agreementClauses } from '../../../../shared/domain/agreement-clauses.js';
+import type { AgreementDto, AmendmentBody, AmendmentChanges } from '../../../../shared/schemas/agreements.js';
 import { recordRequestEvent } from '../requests/request-events.js';
 import { mailOrganizations } from '../requests/notify.js';
-import { announceAgreement } from './agreement-create.js';
+import { announceAgreement, copyRange } from './agreement-create.js';
 import { createPlacementsForAgreement } from '../placements/placement-create.js';
 import { agreementChanged } from '../alerts/conflict-rechecks.js';
+import { labelOf } from '../../../../shared/labels/label-set.js';
+import { agreementStateSet, amendmentStateSet } from '../../../../shared/labels/agreements.js';
 
-type AgreementRow = {
-  id: string; request_id: string; request_title: string; commitment_id: string; farm_id: string; farm_name: string; apiary_id: string; apiary_name: string;
-  state: AgreementState; version: number; colonies: number; price_per_colony_cents: number; currency: string; min_frames_of_bees: number;
-  min_frames_of_brood: number | null; expected_on_site: string; notice_hours: number; removal_notice_hours: number; deposit_share_bp: number;
-  balance_due_days: number; late_interest_bp_per_month: number; below_minimum_rate_bp: number; extra_move_fee_cents: number; clauses: AgreementClause[];
-  farm_confirmed_name: string | null; farm_confirmed_at: Date | null; apiary_confirmed_name: string | null; apiary_confirmed_at: Date | null; created_at: Date;
-};
-
-const selectAgreements = `
-  SELECT a.*, a.expected_on_site::text AS expected_on_site, r.title AS request_title, fo.name AS farm_name, ao.name AS apiary_name,
-    fu.name AS farm_confirmed_name, au.name AS apiary_confirmed_name
-  FROM agreements a JOIN hive_requests r ON r.id = a.request_id JOIN organizations fo ON fo.id = a.farm_id JOIN organizations ao ON ao.id = a.apiary_id
-  LEFT JOIN users fu ON fu.id = a.farm_confirmed_by LEFT JOIN users au ON au.id = a.apiary_confirmed_by`;
-
-/** Amendable terms and their columns. */
-const amendableColumns: Record<Exclude<keyof AmendmentChanges, 'expectedOnSite'>, string> = {
-  pricePerColonyCents: 'price_per_colony_cents',
-  noticeHours: 'notice_hours',
-  removalNoticeHours: 'removal_notice_hours',
-  minFramesOfBees: 'min_frames_of_bees',
-  extraMoveFeeCents: 'extra_move_fee_cents',
-};
+/** Amendable terms (besides the window), by their attribute names. */
+const amendableTerms = ['pricePerColonyCents', 'noticeHours', 'removalNoticeHours', 'minFramesOfBees', 'extraMoveFeeCents'] as const satisfies ReadonlyArray<Exclude<keyof AmendmentChanges, 'expectedOnSite'>>;
 
 export function sideOf(user: AuthUser): 'farm' | 'apiary' {
   if (user.organizationKind !== 'farm' && user.organizationKind !== 'apiary') throw forbidden();
   return user.organizationKind;
 }
 
-export function createAgreementsService(ctx: AppContext) {
-  async function amendmentsOf(agreementId: string): Promise<AmendmentDto[]> {
-    const rows = await selectRows<{ id: string; state: AmendmentDto['state']; changes: AmendmentChanges; previous: Record<string, unknown>; reason: string; proposed_side: 'farm' | 'apiary'; proposed_name: string | null; decided_name: string | null; decided_at: Date | null; version_after: number | null; created_at: Date }>(
-      ctx,
-      `SELECT m.*, pu.name AS proposed_name, du.name AS decided_name FROM agreement_amendments m
-       LEFT JOIN users pu ON pu.id = m.proposed_by LEFT JOIN users du ON du.id = m.decided_by WHERE m.agreement_id = :agreementId ORDER BY m.created_at, m.id`,
-      { agreementId },
-    );
-    return rows.map((m) => ({
-      id: m.id, state: m.state, changes: m.changes, previous: m.previous, reason: m.reason, proposedSide: m.proposed_side, proposedByName: m.proposed_name,
-      decidedByName: m.decided_name, decidedAt: iso(m.decided_at), versionAfter: m.version_after, createdAt: iso(m.created_at)!,
-    }));
-  }
+export type AgreementsService = ReturnType<typeof createAgreementsService>;
 
-  async function toDto(row: AgreementRow): Promise<AgreementDto> {
-    const window = parseRange(row.expected_on_site)!;
-    const blocks = await selectRows<{ id: string; name: string; crop: string }>(
-      ctx, 'SELECT b.id, b.name, b.crop FROM hive_request_blocks hb JOIN blocks b ON b.id = hb.block_id WHERE hb.request_id = :requestId ORDER BY b.name', { requestId: row.request_id },
-    );
+export function createAgreementsService(ctx: AppContext) {
+
+  /** Everything an agreement's answer shows: parties, who confirmed, the request's blocks, the amendments. */
+  const fullAgreement = () => ({
+    include: [
+      {
+        model: ctx.models.HiveRequest, as: 'request', attributes: ['id', 'title'],
+        include: [{ model: ctx.models.HiveRequestBlock, as: 'blockShares', include: [{ model: ctx.models.Block, as: 'block', attributes: ['id', 'name', 'crop'] }] }],
+      },
+      { model: ctx.models.Organization, as: 'farm', attributes: ['name'] },
+      { model: ctx.models.Organization, as: 'apiary', attributes: ['name'] },
+      { model: ctx.models.User, as: 'farmConfirmer', attributes: ['name'] },
+      { model: ctx.models.User, as: 'apiaryConfirmer', attributes: ['name'] },
+      {
+        model: ctx.models.AgreementAmendment, as: 'amendments',
+        include: [{ model: ctx.models.User, as: 'proposer', attributes: ['name'] }, { model: ctx.models.User, as: 'decider', attributes: ['name'] }],
+      },
+    ],
+    order: [
+      [{ model: ctx.models.HiveRequest, as: 'request' }, { model: ctx.models.HiveRequestBlock, as: 'blockShares' }, { model: ctx.models.Block, as: 'block' }, 'name', 'ASC'],
+      [{ model: ctx.models.AgreementAmendment, as: 'amendments' }, 'createdAt', 'ASC'],
+      [{ model: ctx.models.AgreementAmendment, as: 'amendments' }, 'id', 'ASC'],
+    ] as never,
+  });
+
+  function toDto(a: Agreement): AgreementDto {
+    const window = rangeBounds(a.expectedOnSite)!;
     return {
-      id: row.id, requestId: row.request_id, requestTitle: row.request_title, commitmentId: row.commitment_id, farmId: row.farm_id, farmName: row.farm_name,
-      apiaryId: row.apiary_id, apiaryName: row.apiary_name, state: row.state, version: row.version, colonies: row.colonies,
-      pricePerColonyCents: row.price_per_colony_cents, currency: row.currency.trim(), minFramesOfBees: row.min_frames_of_bees, minFramesOfBrood: row.min_frames_of_brood,
-      expectedOnSite: { from: window.from!, to: window.to! }, noticeHours: row.notice_hours, removalNoticeHours: row.removal_notice_hours,
-      depositShareBp: row.deposit_share_bp, balanceDueDays: row.balance_due_days, lateInterestBpPerMonth: row.late_interest_bp_per_month,
-      belowMinimumRateBp: row.below_minimum_rate_bp, extraMoveFeeCents: row.extra_move_fee_cents, clauses: row.clauses, blocks,
-      farmConfirmation: { byName: row.farm_confirmed_name, at: iso(row.farm_confirmed_at) },
-      apiaryConfirmation: { byName: row.apiary_confirmed_name, at: iso(row.apiary_confirmed_at) },
-      amendments: await amendmentsOf(row.id), createdAt: iso(row.created_at)!,
+      id: a.id, requestId: a.requestId, requestTitle: a.request!.title, commitmentId: a.commitmentId, farmId: a.farmId, farmName: a.farm!.name,
+      apiaryId: a.apiaryId, apiaryName: a.apiary!.name, state: a.state, version: a.version, colonies: a.colonies,
+      pricePerColonyCents: a.pricePerColonyCents, currency: a.currency.trim(), minFramesOfBees: a.minFramesOfBees, minFramesOfBrood: a.minFramesOfBrood,
+      expectedOnSite: { from: window.from!, to: window.to! }, noticeHours: a.noticeHours, removalNoticeHours: a.removalNoticeHours,
+      depositShareBp: a.depositShareBp, balanceDueDays: a.balanceDueDays, lateInterestBpPerMonth: a.lateInterestBpPerMonth,
+      belowMinimumRateBp: a.belowMinimumRateBp, extraMoveFeeCents: a.extraMoveFeeCents, clauses: a.clauses,
+      blocks: a.request!.blockShares!.map((s) => ({ id: s.block!.id, name: s.block!.name, crop: s.block!.crop })),
+      farmConfirmation: { byName: a.farmConfirmer?.name ?? null, at: a.farmConfirmedAt?.toISOString() ?? null },
+      apiaryConfirmation: { byName: a.apiaryConfirmer?.name ?? null, at: a.apiaryConfirmedAt?.toISOString() ?? null },
+      amendments: a.amendments!.map((x) => ({
+        id: x.id, state: x.state, changes: x.changes, previous: x.previousTerms, reason: x.reason, proposedSide: x.proposedSide,
+        proposedByName: x.proposer?.name ?? null, decidedByName: x.decider?.name ?? null, decidedAt: x.decidedAt?.toISOString() ?? null,
+        versionAfter: x.versionAfter, createdAt: x.createdAt.toISOString(),
+      })),
+      createdAt: a.createdAt.toISOString(),
     };
   }
 
   /** The agreement row locked for a change by one of its parties; 404 for anyone else. */
   async function lockOwn(user: AuthUser, id: string, t: Transaction) {
-    const row = await selectOne<{ id: string; state: AgreementState; farm_id: string; apiary_id: string; request_id: string; farm_confirmed_at: Date | null; apiary_confirmed_at: Date | null; version: number }>(
-      ctx, 'SELECT id, state, farm_id, apiary_id, request_id, farm_confirmed_at, apiary_confirmed_at, version FROM agreements WHERE id = :id AND (farm_id = :org OR apiary_id = :org) FOR UPDATE',
-      { id, org: user.organizationId }, t,
-    );
+    const row = await ctx.models.Agreement.scope({ method: ['ofParty', user.organizationId] }).findOne({ where: { id }, transaction: t, lock: t.LOCK.UPDATE });
     if (!row) throw notFound('That agreement');
     return row;
   }
 
   const service = {
     async list(user: AuthUser): Promise<AgreementDto[]> {
-      const rows = await selectRows<AgreementRow>(ctx, `${selectAgreements} WHERE a.farm_id = :org OR a.apiary_id = :org ORDER BY lower(a.expected_on_site), a.created_at, a.id`, { org: user.organizationId });
-      return Promise.all(rows.map(toDto));
+      const rows = await ctx.models.Agreement.scope({ method: ['ofParty', user.organizationId] }).findAll(fullAgreement());
+      const start = (a: Agreement) => a.expectedOnSite[0].value?.getTime() ?? -Infinity;
+      rows.sort((a, b) => start(a) - start(b) || a.createdAt.getTime() - b.createdAt.getTime() || (a.id < b.id ? -1 : 1));
+      return rows.map(toDto);
     },
 
     async get(user: AuthUser, id: string): Promise<AgreementDto> {
-      const row = await selectOne<AgreementRow>(ctx, `${selectAgreements} WHERE a.id = :id AND (a.farm_id = :org OR a.apiary_id = :org)`, { id, org: user.organizationId });
+      const row = await ctx.models.Agreement.scope({ method: ['ofParty', user.organizationId] }).findOne({ where: { id }, ...fullAgreement() });
       if (!row) throw notFound('That agreement');
       return toDto(row);
     },
@@ -100,23 +98,22 @@ export function createAgreementsService(ctx: AppContext) {
       const side = sideOf(user);
       const result = await ctx.sequelize.transaction(async (t) => {
         const a = await lockOwn(user, id, t);
-        if (a.state !== 'awaiting-signatures') throw wrongState(`This agreement is ${a.state}; there is nothing to confirm.`);
-        if ((side === 'farm' ? a.farm_confirmed_at : a.apiary_confirmed_at) != null) throw conflict('Your side has already confirmed this agreement.');
-        const now = ctx.now().toISOString();
-        await execute(ctx, `UPDATE agreements SET ${side}_confirmed_by = :userId, ${side}_confirmed_at = :now, updated_at = now() WHERE id = :id`, { id, userId: user.id, now }, t);
-        const bothConfirmed = (side === 'farm' ? a.apiary_confirmed_at : a.farm_confirmed_at) != null;
-        await recordRequestEvent(ctx, t, a.request_id, user.id, 'agreement-confirmed', { agreementId: id, side });
-        let created: string[] = [];
+        if (a.state !== 'awaiting-signatures') throw wrongState(`This agreement is ${labelOf(agreementStateSet, a.state).toLowerCase()}; there is nothing to confirm.`);
+        if ((side === 'farm' ? a.farmConfirmedAt : a.apiaryConfirmedAt) != null) throw conflict('Your side has already confirmed this agreement.');
+        const bothConfirmed = (side === 'farm' ? a.apiaryConfirmedAt : a.farmConfirmedAt) != null;
+        const now = ctx.now();
+        await a.update(side === 'farm' ? { farmConfirmedBy: user.id, farmConfirmedAt: now } : { apiaryConfirmedBy: user.id, apiaryConfirmedAt: now }, { transaction: t });
+        await recordRequestEvent(ctx, t, a.requestId, user.id, 'agreement-confirmed', { agreementId: id, side });
         if (bothConfirmed) {
-          await execute(ctx, "UPDATE agreements SET state = 'in-force', updated_at = now() WHERE id = :id", { id }, t);
-          created = await createPlacementsForAgreement(ctx, id, t);
-          await recordRequestEvent(ctx, t, a.request_id, user.id, 'agreement-in-force', { agreementId: id, placements: created.length });
+          await a.update({ state: 'in-force' }, { transaction: t });
+          const created = await createPlacementsForAgreement(ctx, id, t);
+          await recordRequestEvent(ctx, t, a.requestId, user.id, 'agreement-in-force', { agreementId: id, placements: created.length });
           await agreementChanged(ctx, t, id); // the spray conflict check grades agreements in force
         }
-        return { a, created, bothConfirmed };
+        return { farmId: a.farmId, apiaryId: a.apiaryId, bothConfirmed };
       });
       await announceAgreement(ctx, id);
-      const other = side === 'farm' ? result.a.apiary_id : result.a.farm_id;
+      const other = side === 'farm' ? result.apiaryId : result.farmId;
       await mailOrganizations(ctx, [other], {
         subject: result.bothConfirmed ? 'Agreement confirmed by both sides' : `${user.organizationName} confirmed the agreement`,
         text: result.bothConfirmed
@@ -130,24 +127,22 @@ export function createAgreementsService(ctx: AppContext) {
       const side = sideOf(user);
       const a = await ctx.sequelize.transaction(async (t) => {
         const a = await lockOwn(user, id, t);
-        if (a.state !== 'in-force') throw wrongState(`Only an agreement confirmed by both sides is amended; this one is ${a.state}.`);
+        if (a.state !== 'in-force') throw wrongState(`Only an agreement confirmed by both sides is amended; this one is ${labelOf(agreementStateSet, a.state).toLowerCase()}.`);
+        const now = ctx.now();
         try {
-          await execute(
-            ctx,
-            `INSERT INTO agreement_amendments (agreement_id, changes, reason, proposed_side, proposed_by, created_at, updated_at)
-             VALUES (:id, :changes::jsonb, :reason, :side, :userId, :now, :now)`,
-            { id, changes: JSON.stringify(body.changes), reason: body.reason, side, userId: user.id, now: ctx.now().toISOString() },
-            t,
+          await ctx.models.AgreementAmendment.create(
+            { agreementId: id, changes: body.changes as AmendmentChanges, reason: body.reason, proposedSide: side, proposedBy: user.id, createdAt: now },
+            { transaction: t },
           );
         } catch (err) {
           if (err instanceof UniqueConstraintError) throw conflict('An amendment to this agreement is already waiting for an answer.');
           throw err;
         }
-        await recordRequestEvent(ctx, t, a.request_id, user.id, 'amendment-proposed', { agreementId: id, changes: body.changes });
-        return a;
+        await recordRequestEvent(ctx, t, a.requestId, user.id, 'amendment-proposed', { agreementId: id, changes: body.changes });
+        return { farmId: a.farmId, apiaryId: a.apiaryId };
       });
       await announceAgreement(ctx, id);
-      await mailOrganizations(ctx, [side === 'farm' ? a.apiary_id : a.farm_id], { subject: 'An amendment to your agreement waits for you', text: `${user.organizationName} proposes a change: ${body.reason}` });
+      await mailOrganizations(ctx, [side === 'farm' ? a.apiaryId : a.farmId], { subject: 'An amendment to your agreement waits for you', text: `${user.organizationName} proposes a change: ${body.reason}` });
       return service.get(user, id);
     },
 
@@ -155,62 +150,47 @@ export function createAgreementsService(ctx: AppContext) {
       const side = sideOf(user);
       const outcome = await ctx.sequelize.transaction(async (t) => {
         const a = await lockOwn(user, id, t);
-        const m = await selectOne<{ id: string; state: string; proposed_side: string; changes: AmendmentChanges }>(
-          ctx, 'SELECT id, state, proposed_side, changes FROM agreement_amendments WHERE id = :amendmentId AND agreement_id = :id FOR UPDATE', { amendmentId, id }, t,
-        );
-        if (!m) throw notFound('That amendment');
-        if (m.state !== 'proposed') throw wrongState(`This amendment is already ${m.state}.`);
-        const own = m.proposed_side === side;
+        const amendment = await ctx.models.AgreementAmendment.findOne({ where: { id: amendmentId, agreementId: id }, transaction: t, lock: t.LOCK.UPDATE });
+        if (!amendment) throw notFound('That amendment');
+        if (amendment.state !== 'proposed') throw wrongState(`This change to the agreement is already ${labelOf(amendmentStateSet, amendment.state).toLowerCase()}.`);
+        const own = amendment.proposedSide === side;
         if (answer === 'withdraw' && !own) throw forbidden('Only the side that proposed an amendment may withdraw it.');
         if (answer !== 'withdraw' && own) throw forbidden('The other side confirms or rejects an amendment your side proposed.');
-        if (answer === 'confirm' && a.state !== 'in-force') throw wrongState(`This agreement is ${a.state}.`);
-        const now = ctx.now().toISOString();
+        if (answer === 'confirm' && a.state !== 'in-force') throw wrongState(`This agreement is ${labelOf(agreementStateSet, a.state).toLowerCase()}.`);
         let versionAfter: number | null = null;
-        let previous: Record<string, unknown> = {};
+        const previous: Record<string, unknown> = {};
         if (answer === 'confirm') {
-          const current = (await selectOne<Record<string, unknown>>(ctx, 'SELECT *, expected_on_site::text AS expected_on_site FROM agreements WHERE id = :id', { id }, t))!;
-          const sets: string[] = [];
-          const replacements: Record<string, unknown> = { id };
-          for (const [key, column] of Object.entries(amendableColumns)) {
-            const value = m.changes[key as keyof typeof amendableColumns];
-            if (value === undefined) continue;
-            previous[key] = current[column];
-            sets.push(`${column} = :${key}`);
-            replacements[key] = value;
+          const changes = amendment.changes;
+          const next: Partial<Pick<Agreement, (typeof amendableTerms)[number] | 'expectedOnSite'>> = {};
+          for (const key of amendableTerms) {
+            if (changes[key] === undefined) continue;
+            previous[key] = a[key];
+            next[key] = changes[key];
           }
-          if (m.changes.expectedOnSite) {
-            previous.expectedOnSite = parseRange(current.expected_on_site as string);
-            sets.push("expected_on_site = tstzrange(:from, :to, '[)')");
-            replacements.from = m.changes.expectedOnSite.from;
-            replacements.to = m.changes.expectedOnSite.to;
+          if (changes.expectedOnSite) {
+            previous.expectedOnSite = rangeBounds(a.expectedOnSite);
+            next.expectedOnSite = timeRange(changes.expectedOnSite.from, changes.expectedOnSite.to);
           }
           versionAfter = a.version + 1;
-          await execute(ctx, `UPDATE agreements SET ${sets.join(', ')}, version = ${versionAfter}, updated_at = now() WHERE id = :id`, replacements, t);
-          const terms = (await selectOne<Record<string, number | string | null>>(ctx, 'SELECT * FROM agreements WHERE id = :id', { id }, t))!;
-          const clauses = agreementClauses({
-            colonies: terms.colonies as number, minFramesOfBees: terms.min_frames_of_bees as number, minFramesOfBrood: terms.min_frames_of_brood as number | null,
-            pricePerColonyCents: terms.price_per_colony_cents as number, currency: String(terms.currency).trim(), depositShareBp: terms.deposit_share_bp as number,
-            balanceDueDays: terms.balance_due_days as number, lateInterestBpPerMonth: terms.late_interest_bp_per_month as number,
-            belowMinimumRateBp: terms.below_minimum_rate_bp as number, extraMoveFeeCents: terms.extra_move_fee_cents as number,
-            noticeHours: terms.notice_hours as number, removalNoticeHours: terms.removal_notice_hours as number,
-          });
-          await execute(ctx, 'UPDATE agreements SET clauses = :clauses::jsonb WHERE id = :id', { id, clauses: JSON.stringify(clauses) }, t);
+          await a.update({ ...next, version: versionAfter }, { transaction: t });
+          await a.update({
+            clauses: agreementClauses({
+              colonies: a.colonies, minFramesOfBees: a.minFramesOfBees, minFramesOfBrood: a.minFramesOfBrood, pricePerColonyCents: a.pricePerColonyCents,
+              currency: a.currency.trim(), depositShareBp: a.depositShareBp, balanceDueDays: a.balanceDueDays, lateInterestBpPerMonth: a.lateInterestBpPerMonth,
+              belowMinimumRateBp: a.belowMinimumRateBp, extraMoveFeeCents: a.extraMoveFeeCents, noticeHours: a.noticeHours, removalNoticeHours: a.removalNoticeHours,
+            }),
+          }, { transaction: t });
           // Placements not yet delivered follow the agreement's window.
-          await execute(ctx, "UPDATE placements SET on_site = a.expected_on_site, updated_at = now() FROM agreements a WHERE a.id = placements.agreement_id AND placements.agreement_id = :id AND placements.state = 'scheduled'", { id }, t);
+          await ctx.models.Placement.update({ onSite: copyRange(a.expectedOnSite) }, { where: { agreementId: id, state: 'scheduled' }, transaction: t });
         }
         const state = answer === 'confirm' ? 'accepted' : answer === 'reject' ? 'rejected' : 'withdrawn';
-        await execute(
-          ctx,
-          'UPDATE agreement_amendments SET state = :state, decided_by = :userId, decided_at = :now, previous = :previous::jsonb, version_after = :versionAfter, updated_at = now() WHERE id = :amendmentId',
-          { state, userId: user.id, now, previous: JSON.stringify(previous), versionAfter, amendmentId },
-          t,
-        );
-        await recordRequestEvent(ctx, t, a.request_id, user.id, `amendment-${state}`, { agreementId: id, amendmentId });
+        await amendment.update({ state, decidedBy: user.id, decidedAt: ctx.now(), previousTerms: previous, versionAfter }, { transaction: t });
+        await recordRequestEvent(ctx, t, a.requestId, user.id, `amendment-${state}`, { agreementId: id, amendmentId });
         if (state === 'accepted') await agreementChanged(ctx, t, id);
-        return { a, state };
+        return { farmId: a.farmId, apiaryId: a.apiaryId, state };
       });
       await announceAgreement(ctx, id);
-      await mailOrganizations(ctx, [side === 'farm' ? outcome.a.apiary_id : outcome.a.farm_id], { subject: `Amendment ${outcome.state}`, text: `${user.organizationName} ${outcome.state === 'accepted' ? 'confirmed' : outcome.state} the amendment to your pollination agreement.` });
+      await mailOrganizations(ctx, [side === 'farm' ? outcome.apiaryId : outcome.farmId], { subject: `Change to the agreement: ${labelOf(amendmentStateSet, outcome.state).toLowerCase()}`, text: `${user.organizationName} ${outcome.state === 'accepted' ? 'accepted' : outcome.state === 'rejected' ? 'turned down' : 'withdrew'} the change to your pollination agreement.` });
       return service.get(user, id);
     },
   };

@@ -3,25 +3,19 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import type { AppContext } from '../../context.js';
-import { allow, currentUser } from '../../middleware/authenticate.js';
+import { allow } from '../../middleware/authenticate.js';
 import { validate } from '../../middleware/validate.js';
 import { calendarPolicy } from './calendar.policy.js';
 import { createCalendarService } from './calendar.service.js';
+import { createCalendarController } from './calendar.controller.js';
 
 const feedParams = z.object({ file: z.string().regex(/^[A-Za-z0-9_-]{20,64}\.ics$/, 'must be a calendar token ending in .ics') });
 
 export function calendarRoutes(ctx: AppContext): Router {
-  const service = createCalendarService(ctx);
+  const controller = createCalendarController(createCalendarService(ctx));
   const router = Router();
-  router.get('/', allow(calendarPolicy, 'manage'), async (req, res) => {
-    res.json(await service.current(currentUser(req)));
-  });
-  router.post('/token', allow(calendarPolicy, 'manage'), async (req, res) => {
-    res.status(201).json(await service.renew(currentUser(req)));
-  });
-  router.get('/feed/:file', validate({ params: feedParams }), async (req, res) => {
-    const body = await service.feed(String(req.params.file).replace(/\.ics$/, ''));
-    res.type('text/calendar; charset=utf-8').set('Cache-Control', 'private, no-store').send(body);
-  });
+  router.get('/', allow(calendarPolicy, 'manage'), controller.current);
+  router.post('/token', allow(calendarPolicy, 'manage'), controller.renew);
+  router.get('/feed/:file', validate({ params: feedParams }), controller.feed);
   return router;
 }

@@ -1,12 +1,14 @@
-// Writes rows as CSV (RFC 4180): every field quoted when it holds a comma, quote or line
-// break; lines end with CRLF. Fields starting with = + - @ are prefixed with ' so a
-// spreadsheet does not run them as formulas.
-export function toCsv(header: string[], rows: Array<Array<string | number | boolean | null | undefined>>): string {
-  const cell = (value: string | number | boolean | null | undefined) => {
-    if (value == null) return '';
-    let text = String(value);
-    if (typeof value === 'string' && /^[=+\-@]/.test(text)) text = `'${text}`;
-    return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-  };
-  return [header, ...rows].map((row) => row.map(cell).join(',')).join('\r\n') + '\r\n';
+// Rows as CSV through csv-stringify (RFC 4180): a field is quoted when it holds a comma,
+// quote or line break; lines end with CRLF. Text starting with = + - @ gets a leading '
+// so a spreadsheet does not run it as a formula; booleans read true/false.
+import { stringify } from 'csv-stringify/sync';
+
+export type CsvCell = string | number | boolean | null | undefined;
+
+export function toCsv(header: string[], rows: CsvCell[][]): string {
+  return stringify([header, ...rows], {
+    record_delimiter: '\r\n',
+    quoted_match: /[\r\n]/,
+    cast: { boolean: (value) => String(value), string: (value) => (/^[=+\-@]/.test(value) ? `'${value}` : value) },
+  });
 }

@@ -4,37 +4,33 @@
 // delivery a placement is expected on site for the agreement's window.
 import type { Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
-import { selectOne, selectRows } from '../requests/sql.js';
+import type { TimeRange } from '../../db/time-range.js';
 
 export async function createPlacementsForAgreement(ctx: AppContext, agreementId: string, t: Transaction): Promise<string[]> {
-  const agreement = (await selectOne<{ request_id: string; colonies: number }>(ctx, 'SELECT request_id, colonies FROM agreements WHERE id = :agreementId', { agreementId }, t))!;
-  const sites = await selectRows<{ id: string; colonies_planned: number; taken: string }>(
-    ctx,
-    `SELECT d.id, d.colonies_planned,
-       (SELECT coalesce(sum(p.colonies_planned), 0) FROM placements p JOIN agreements a ON a.id = p.agreement_id
-        WHERE p.drop_site_id = d.id AND a.state IN ('in-force', 'completed')) AS taken
-     FROM drop_sites d WHERE d.request_id = :requestId ORDER BY d.created_at, d.name, d.id`,
-    { requestId: agreement.request_id },
-    t,
-  );
+  const agreement = await ctx.models.Agreement.findByPk(agreementId, { attributes: ['id', 'requestId', 'colonies', 'expectedOnSite'], transaction: t, rejectOnEmpty: true });
+  const sites = await ctx.models.DropSite.findAll({
+    attributes: ['id', 'coloniesPlanned'],
+    where: { requestId: agreement.requestId },
+    include: [{
+      model: ctx.models.Placement, as: 'placements', attributes: ['coloniesPlanned'], required: false,
+      include: [{ model: ctx.models.Agreement, as: 'agreement', attributes: [], where: { state: ['in-force', 'completed'] } }],
+    }],
+    order: [['createdAt', 'ASC'], ['name', 'ASC'], ['id', 'ASC']],
+    transaction: t,
+  });
   const shares = new Map<string, number>();
   let left = agreement.colonies;
   for (const site of sites) {
-    const share = Math.min(left, Math.max(0, site.colonies_planned - Number(site.taken)));
+    const taken = site.placements!.reduce((sum, p) => sum + p.coloniesPlanned, 0);
+    const share = Math.min(left, Math.max(0, site.coloniesPlanned - taken));
     if (share > 0) shares.set(site.id, share);
     left -= share;
   }
   if (left > 0 && sites.length) shares.set(sites.at(-1)!.id, (shares.get(sites.at(-1)!.id) ?? 0) + left);
-  const ids: string[] = [];
-  for (const [siteId, colonies] of shares) {
-    const row = await selectOne<{ id: string }>(
-      ctx,
-      `INSERT INTO placements (agreement_id, drop_site_id, state, colonies_planned, on_site)
-       SELECT :agreementId, :siteId, 'scheduled', :colonies, expected_on_site FROM agreements WHERE id = :agreementId RETURNING id`,
-      { agreementId, siteId, colonies },
-      t,
-    );
-    ids.push(row!.id);
-  }
-  return ids;
+  const window: TimeRange = agreement.expectedOnSite;
+  const created = await ctx.models.Placement.bulkCreate(
+    [...shares].map(([dropSiteId, colonies]) => ({ agreementId, dropSiteId, state: 'scheduled' as const, coloniesPlanned: colonies, onSite: [{ ...window[0] }, { ...window[1] }] as TimeRange })),
+    { transaction: t },
+  );
+  return created.map((p) => p.id);
 }

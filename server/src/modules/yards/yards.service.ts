@@ -1,43 +1,35 @@
 // An apiary business's yards: the home locations distances to requests are measured from.
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
+import type { Yard } from '../../db/models/yard.model.js';
 import { notFound } from '../../errors/http-errors.js';
+import { plainGeoJson } from '../../db/geojson.js';
 import type { YardBody, YardDto } from '../../../../shared/schemas/yards.js';
-import { execute, selectOne, selectRows } from '../requests/sql.js';
 
-type YardRow = { id: string; name: string; location: string; colonies: number | null; notes: string | null };
-const columns = 'id, name, ST_AsGeoJSON(location) AS location, colonies, notes';
-const toDto = (row: YardRow): YardDto => ({ id: row.id, name: row.name, location: JSON.parse(row.location), colonies: row.colonies, notes: row.notes });
+const toDto = (row: Yard): YardDto => ({ id: row.id, name: row.name, location: plainGeoJson(row.location), colonies: row.colonies, notes: row.notes });
+
+export type YardsService = ReturnType<typeof createYardsService>;
 
 export function createYardsService(ctx: AppContext) {
+  const yardsOf = (user: AuthUser) => ctx.models.Yard.scope({ method: ['ofApiary', user.organizationId] });
+  const attributes = (body: YardBody) => ({ name: body.name, location: body.location, colonies: body.colonies ?? null, notes: body.notes ?? null });
+  async function own(user: AuthUser, id: string) {
+    const yard = await yardsOf(user).findOne({ where: { id } });
+    if (!yard) throw notFound('That yard');
+    return yard;
+  }
   return {
     async list(user: AuthUser): Promise<YardDto[]> {
-      const rows = await selectRows<YardRow>(ctx, `SELECT ${columns} FROM yards WHERE apiary_id = :org ORDER BY name, id`, { org: user.organizationId });
-      return rows.map(toDto);
+      return (await yardsOf(user).findAll({ order: [['name', 'ASC'], ['id', 'ASC']] })).map(toDto);
     },
     async create(user: AuthUser, body: YardBody): Promise<YardDto> {
-      const row = await selectOne<YardRow>(
-        ctx,
-        `INSERT INTO yards (apiary_id, name, location, colonies, notes)
-         VALUES (:org, :name, ST_SetSRID(ST_GeomFromGeoJSON(:location), 4326), :colonies, :notes) RETURNING ${columns}`,
-        { org: user.organizationId, name: body.name, location: JSON.stringify(body.location), colonies: body.colonies ?? null, notes: body.notes ?? null },
-      );
-      return toDto(row!);
+      return toDto(await ctx.models.Yard.create({ apiaryId: user.organizationId!, ...attributes(body) }));
     },
     async update(user: AuthUser, id: string, body: YardBody): Promise<YardDto> {
-      const row = await selectOne<YardRow>(
-        ctx,
-        `UPDATE yards SET name = :name, location = ST_SetSRID(ST_GeomFromGeoJSON(:location), 4326), colonies = :colonies, notes = :notes, updated_at = now()
-         WHERE id = :id AND apiary_id = :org RETURNING ${columns}`,
-        { id, org: user.organizationId, name: body.name, location: JSON.stringify(body.location), colonies: body.colonies ?? null, notes: body.notes ?? null },
-      );
-      if (!row) throw notFound('That yard');
-      return toDto(row);
+      return toDto(await (await own(user, id)).update(attributes(body)));
     },
     async remove(user: AuthUser, id: string): Promise<void> {
-      const row = await selectOne<{ id: string }>(ctx, 'SELECT id FROM yards WHERE id = :id AND apiary_id = :org', { id, org: user.organizationId });
-      if (!row) throw notFound('That yard');
-      await execute(ctx, 'DELETE FROM yards WHERE id = :id', { id });
+      await (await own(user, id)).destroy();
     },
   };
 }
