@@ -2,6 +2,8 @@
 // service wraps these with its authorization and scoping; the demo seed and test builders
 // use them directly so they describe the same invoices.
 import type { Sequelize, Transaction } from 'sequelize';
+import { DateTime } from 'luxon';
+import { depositDueOn } from '../../../../shared/domain/agreement-billing.js';
 import type { Models } from '../../db/models/index.js';
 import { priceInvoice, type PricedLine, type PlacementToPrice } from '../../../../shared/domain/invoice-pricing.js';
 import { notFound, wrongState } from '../../errors/http-errors.js';
@@ -78,7 +80,11 @@ export async function issueDraft(db: InvoiceDatabase, invoiceId: string, apiaryI
     if (!invoice) throw notFound('That invoice');
     if (invoice.lifecycle !== 'draft') throw wrongState('This invoice has already been issued.');
     const number = await takeNextNumber(db.models, transaction, invoice.apiaryId, 'invoice');
-    await invoice.update({ lifecycle: 'issued', number, issuedAt: at, issuedBy }, { transaction });
+    // The draft's deposit date is the delivery day; issuing applies the agreement's rule (agreement-billing.ts).
+    const agreement = await selectAgreementTerms(db.sequelize, invoice.apiaryId, invoice.agreementId);
+    const issuedOn = DateTime.fromJSDate(at, { zone: invoice.timeZone }).toISODate();
+    const depositDue = invoice.depositDueOn && agreement ? depositDueOn(invoice.depositDueOn, issuedOn, agreement.balance_due_days) : invoice.depositDueOn;
+    await invoice.update({ lifecycle: 'issued', number, issuedAt: at, issuedBy, depositDueOn: depositDue }, { transaction });
     return number;
   });
 }
