@@ -1,6 +1,6 @@
 // Pollination agreements and their amendments.
 import { z } from 'zod';
-import { isoDateTimeSchema } from './common.js';
+import { isoDateTimeSchema, maxWindowDays, windowAtMost } from './common.js';
 import type { AgreementClause } from '../domain/agreement-clauses.js';
 
 export const agreementStates = ['awaiting-signatures', 'in-force', 'completed', 'cancelled'] as const;
@@ -19,6 +19,7 @@ export const amendmentChanges = z
     expectedOnSite: z
       .object({ from: isoDateTimeSchema, to: isoDateTimeSchema })
       .refine((w) => Date.parse(w.to) > Date.parse(w.from), { message: 'must end after it starts', path: ['to'] })
+      .refine(...windowAtMost('from', 'to', maxWindowDays.season))
       .optional(),
     noticeHours: z.int().min(0).max(720, 'is at most 720').optional(),
     removalNoticeHours: z.int().min(0).max(720, 'is at most 720').optional(),

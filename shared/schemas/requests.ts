@@ -1,6 +1,6 @@
 // Hive requests and commitments: what a grower asks for and what beekeepers offer.
 import { z } from 'zod';
-import { idSchema, isoDateSchema, pointSchema, type GeoPoint } from './common.js';
+import { idSchema, isDaysApartAtMost, isoDateSchema, maxWindowDays, pointSchema, type GeoPoint } from './common.js';
 
 export const requestStates = ['draft', 'listed', 'filled', 'closed', 'withdrawn'] as const;
 export type RequestState = (typeof requestStates)[number];
@@ -58,7 +58,10 @@ export const requestBody = z.object({
   respondBy: isoDateSchema.nullable().optional(),
   notes: optionalText(4000),
   dropSites: z.array(dropSiteInput).max(50).default([]),
-});
+}).refine(
+  (b) => isDaysApartAtMost('on' in b.arrive ? b.arrive.on : undefined, 'on' in b.depart ? b.depart.on : undefined, maxWindowDays.season),
+  { path: ['depart', 'on'], message: `must be at most ${maxWindowDays.season} days after the arrival date` },
+);
 export type RequestBody = z.input<typeof requestBody>;
 export type ParsedRequestBody = z.output<typeof requestBody>;
 

@@ -5,6 +5,7 @@ import type { ZodType } from 'zod';
 import { z } from 'zod';
 import { createError } from '../errors/create-error.js';
 import type { FieldErrors } from '../../../shared/errors.js';
+import { nulMessage, nulPaths } from '../../../shared/schemas/common.js';
 
 type Schemas = { body?: ZodType; query?: ZodType; params?: ZodType };
 
@@ -18,6 +19,9 @@ export function fieldErrorsOf(error: z.ZodError, prefix?: string): FieldErrors {
 }
 
 export function parseOrThrow<T>(schema: ZodType<T>, value: unknown, prefix?: string): T {
+  // PostgreSQL text cannot hold a NUL character; refuse it in any field before it reaches a query.
+  const withNul = nulPaths(value).map((path) => [prefix, path === 'body' ? '' : path].filter(Boolean).join('.') || prefix || 'body');
+  if (withNul.length) throw createError('validation_failed', `Please check: ${withNul.join(', ')}.`, 400, Object.fromEntries(withNul.map((path) => [path, nulMessage])));
   const result = schema.safeParse(value);
   if (!result.success) {
     const fields = fieldErrorsOf(result.error, prefix);
@@ -28,6 +32,11 @@ export function parseOrThrow<T>(schema: ZodType<T>, value: unknown, prefix?: str
 }
 
 export function validate(schemas: Schemas): RequestHandler {
+  // The schemas stay on the middleware so the route inventory of the tests can read them.
+  return Object.assign(validateWith(schemas), { schemas });
+}
+
+function validateWith(schemas: Schemas): RequestHandler {
   return (req, _res, next) => {
     if (schemas.params) req.params = parseOrThrow(schemas.params, req.params) as typeof req.params;
     if (schemas.query) {
