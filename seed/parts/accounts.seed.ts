@@ -6,7 +6,7 @@ import type { SeedWorld } from '../seed-world.js';
 export async function seedAccounts(world: SeedWorld) {
   const farm = await buildOrganization({ kind: 'farm', name: 'Larkspur Bench Orchards', billingEmail: 'grower@orchard.test' });
   const farm2 = await buildOrganization({ kind: 'farm', name: 'Cinder Ridge Fruit Co.', billingEmail: 'grower2@ridge.test' });
-  const apiary = await buildOrganization({ kind: 'apiary', name: 'Tallowmere Apiaries', coloniesOwned: 1200, billingEmail: 'keeper@apiary.test' });
+  const apiary = await buildOrganization({ kind: 'apiary', name: 'Fernhollow Apiaries', coloniesOwned: 1200, billingEmail: 'keeper@apiary.test' });
   const apiary2 = await buildOrganization({ kind: 'apiary', name: 'Brightcomb Hive Works', coloniesOwned: 450, billingEmail: 'keeper2@hives.test' });
   world.organizations = { farm, farm2, apiary, apiary2 };
   world.users = {

@@ -17,7 +17,7 @@ const DAY = 86_400_000;
 const isoDay = (d: Date) => d.toISOString().slice(0, 10);
 
 export interface SeedBlocks {
-  blocks: Record<'benchGala' | 'benchHoneycrisp' | 'benchPear' | 'benchCherry' | 'ridgeFuji' | 'ridgePlum', BuiltBlock>;
+  blocks: Record<'benchGala' | 'benchBraeburn' | 'benchPear' | 'benchCherry' | 'ridgeFuji' | 'ridgePlum', BuiltBlock>;
   stations: Record<'bench' | 'ridge', { id: string; name: string }>;
   /** First day of the demo season's degree-day accumulation (the shifted "March 1"). */
   degreeDayStart: string;
@@ -55,17 +55,17 @@ export async function seedBlocks(world: SeedWorld) {
 
   const blocks: SeedBlocks['blocks'] = {
     benchGala: await buildBlock({ farm, name: 'Upper Bench Gala', crop: 'apple', lon: -119.906, lat: 44.903, acres: 24, coloniesPerAcre: 1.5 }),
-    benchHoneycrisp: await buildBlock({ farm, name: 'Creekside Honeycrisp', crop: 'apple', lon: -119.897, lat: 44.9, acres: 18, coloniesPerAcre: 2 }),
+    benchBraeburn: await buildBlock({ farm, name: 'Creekside Braeburn', crop: 'apple', lon: -119.897, lat: 44.9, acres: 18, coloniesPerAcre: 2 }),
     benchPear: await buildBlock({ farm, name: 'Millrace Pears', crop: 'pear', lon: -119.912, lat: 44.909, acres: 15, coloniesPerAcre: 2.5 }),
     benchCherry: await buildBlock({ farm, name: 'South Slope Cherries', crop: 'sweet-cherry', lon: -119.9, lat: 44.896, acres: 10, withOutline: false, coloniesPerAcre: 3 }),
     ridgeFuji: await buildBlock({ farm: farm2, name: 'Ridge Top Fuji', crop: 'apple', lon: -119.825, lat: 44.948, acres: 30, coloniesPerAcre: 1.5 }),
     ridgePlum: await buildBlock({ farm: farm2, name: 'Ash Hollow Plums', crop: 'plum', lon: -119.815, lat: 44.955, acres: 12, coloniesPerAcre: 1.3 }),
   };
   await setBlockForecast(blocks.benchGala, bench.id, degreeDayStart, 'Gala', 'Snowdrift crab');
-  await setBlockForecast(blocks.benchHoneycrisp, bench.id, degreeDayStart, 'Honeycrisp', 'Manchurian crab');
+  await setBlockForecast(blocks.benchBraeburn, bench.id, degreeDayStart, 'Braeburn', 'Manchurian crab');
   await setBlockForecast(blocks.benchPear, bench.id, degreeDayStart, 'Bartlett', 'Bosc');
-  await setBlockForecast(blocks.benchCherry, bench.id, degreeDayStart, 'Bing', 'Van');
-  await setBlockForecast(blocks.ridgeFuji, ridge.id, degreeDayStart, 'Fuji', 'Golden Delicious');
+  await setBlockForecast(blocks.benchCherry, bench.id, degreeDayStart, 'Bing', 'Rainier');
+  await setBlockForecast(blocks.ridgeFuji, ridge.id, degreeDayStart, 'Fuji', 'Snowdrift crab');
   await setBlockForecast(blocks.ridgePlum, ridge.id, degreeDayStart, 'Italian prune', null);
 
   // Apple windows come from the same forecast the app shows; the others are set by hand.
@@ -88,7 +88,7 @@ export async function seedBlocks(world: SeedWorld) {
   if (gala) {
     await buildBloomWindow({ block: blocks.benchGala, season, bloomStart: shift(gala.bloomStart, 2), fullBloom: gala.fullBloom ? shift(gala.fullBloom, 2) : null, petalFall: shift(gala.petalFall, 2), revisedBy: grower, note: 'First estimate from the degree-day forecast' });
     await buildBloomWindow({ block: blocks.benchGala, season, bloomStart: gala.bloomStart, fullBloom: gala.fullBloom, petalFall: gala.petalFall, revisedBy: grower, note: 'Warm week: moved two days earlier' });
-    await buildBloomWindow({ block: blocks.benchHoneycrisp, season, bloomStart: shift(gala.bloomStart, 1), fullBloom: gala.fullBloom ? shift(gala.fullBloom, 1) : null, petalFall: shift(gala.petalFall, 1), revisedBy: grower, note: 'Follows the Gala by about a day' });
+    await buildBloomWindow({ block: blocks.benchBraeburn, season, bloomStart: shift(gala.bloomStart, 1), fullBloom: gala.fullBloom ? shift(gala.fullBloom, 1) : null, petalFall: shift(gala.petalFall, 1), revisedBy: grower, note: 'Follows the Gala by about a day' });
   }
   await buildBloomWindow({ block: blocks.benchPear, season, bloomStart: isoDay(new Date(today.getTime() - 2 * DAY)), fullBloom: isoDay(new Date(today.getTime() + 3 * DAY)), petalFall: isoDay(new Date(today.getTime() + 11 * DAY)), revisedBy: grower, note: 'Scouted: first white showing' });
   const fuji = windowFor(thisSeason.ridge);

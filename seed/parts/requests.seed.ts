@@ -1,7 +1,7 @@
 // The demo's hive requests, agreements and placements, laid around world.today: yards for
-// both apiaries; an open request on the Honeycrisp with a price offer waiting for the
+// both apiaries; an open request on the Braeburn with a price offer waiting for the
 // grower; an open request at Cinder Ridge nobody has answered; the pear block in bloom
-// split between Tallowmere (delivered three days ago, strength checked) and Brightcomb
+// split between Fernhollow (delivered three days ago, strength checked) and Brightcomb
 // (not yet delivered); an agreement on the Fuji waiting for the beekeeper to confirm;
 // last month's cherries picked up and completed; and a draft.
 import { buildAgreement, buildCommitment, buildDropSite, buildPlacement, buildRequest, buildStrengthCheck, buildYard, type BuiltBlock } from '../../tests/support/builders/season.js';
@@ -17,12 +17,12 @@ export async function seedRequests(world: SeedWorld) {
   if (!handles) return;
   const { farm, farm2, apiary, apiary2 } = world.organizations;
   const { grower, grower2, keeper, keeper2, crew } = world.users;
-  const { benchPear, benchHoneycrisp, benchCherry, benchGala, ridgeFuji, ridgePlum } = handles.blocks;
+  const { benchPear, benchBraeburn, benchCherry, benchGala, ridgeFuji, ridgePlum } = handles.blocks;
   const dayStart = Date.UTC(world.today.getUTCFullYear(), world.today.getUTCMonth(), world.today.getUTCDate());
   const at = (days: number, hours = 0) => new Date(dayStart + days * DAY + hours * HOUR);
   const site = (block: BuiltBlock, dLon: number, dLat = 0) => ({ lon: block.lon + dLon, lat: block.lat + dLat });
 
-  await buildYard({ apiary, name: 'Tallowmere home yard', lon: -119.86, lat: 44.93, colonies: 800 });
+  await buildYard({ apiary, name: 'Fernhollow home yard', lon: -119.86, lat: 44.93, colonies: 800 });
   await buildYard({ apiary, name: 'Old mill winter yard', lon: -119.98, lat: 44.87, colonies: 400 });
   await buildYard({ apiary: apiary2, name: 'Brightcomb yard', lon: -119.75, lat: 44.99, colonies: 450 });
 
@@ -48,19 +48,19 @@ export async function seedRequests(world: SeedWorld) {
   await buildStrengthCheck({ placement: pearPlaced, coloniesInGroup: 24, framesOfBees: [8, 7, 9, 5.5], checkedAt: at(-2, 18), checkedBy: crew });
   const pearWaiting = await buildPlacement({ agreement: pearAgreementB, dropSite: pearSouth, coloniesPlanned: 16 });
 
-  // Open on the Honeycrisp: Brightcomb offers 12 colonies at a higher price, 24 still open.
-  const honeycrisp = await buildRequest({ farm, blocks: [{ block: benchHoneycrisp, colonies: 36 }], state: 'listed', title: 'Creekside Honeycrisp, first king bloom', onSite: { from: at(1), to: at(16) }, createdBy: grower, pricePerColonyCents: 6_800, respondBy: new Date(dayStart + 2 * DAY).toISOString().slice(0, 10) });
-  await opened(honeycrisp, grower, -5);
-  await buildDropSite({ request: honeycrisp, block: benchHoneycrisp, name: 'Creek bend', ...site(benchHoneycrisp, 0.0005), coloniesPlanned: 36, gateCode: '5530' });
-  await buildCommitment({ request: honeycrisp, apiary: apiary2, colonies: 12, state: 'offered', proposedPriceCents: 7_400, createdBy: keeper2 });
-  await buildRequestEvent(honeycrisp, keeper2, 'commitment-offered', at(-1), { colonies: 12, proposedPriceCents: 7_400 });
+  // Open on the Braeburn: Brightcomb offers 12 colonies at a higher price, 24 still open.
+  const braeburn = await buildRequest({ farm, blocks: [{ block: benchBraeburn, colonies: 36 }], state: 'listed', title: 'Creekside Braeburn, first king bloom', onSite: { from: at(1), to: at(16) }, createdBy: grower, pricePerColonyCents: 6_800, respondBy: new Date(dayStart + 2 * DAY).toISOString().slice(0, 10) });
+  await opened(braeburn, grower, -5);
+  await buildDropSite({ request: braeburn, block: benchBraeburn, name: 'Creek bend', ...site(benchBraeburn, 0.0005), coloniesPlanned: 36, gateCode: '5530' });
+  await buildCommitment({ request: braeburn, apiary: apiary2, colonies: 12, state: 'offered', proposedPriceCents: 7_400, createdBy: keeper2 });
+  await buildRequestEvent(braeburn, keeper2, 'commitment-offered', at(-1), { colonies: 12, proposedPriceCents: 7_400 });
 
   // Open at Cinder Ridge, nobody has answered yet.
   const plums = await buildRequest({ farm: farm2, blocks: [{ block: ridgePlum, colonies: 16 }], state: 'listed', title: 'Ash Hollow Plums', onSite: { from: at(4), to: at(18) }, createdBy: grower2, pricePerColonyCents: 6_000 });
   await opened(plums, grower2, -2);
   await buildDropSite({ request: plums, block: ridgePlum, name: 'Hollow track end', ...site(ridgePlum, 0.0004), coloniesPlanned: 16 });
 
-  // The Fuji: Tallowmere committed all 45; Cinder Ridge confirmed, Tallowmere has not yet.
+  // The Fuji: Fernhollow committed all 45; Cinder Ridge confirmed, Fernhollow has not yet.
   const fuji = await buildRequest({ farm: farm2, blocks: [{ block: ridgeFuji, colonies: 45 }], state: 'filled', title: 'Ridge Top Fuji', onSite: { from: at(2), to: at(17) }, createdBy: grower2, pricePerColonyCents: 6_900 });
   await opened(fuji, grower2, -6);
   await buildDropSite({ request: fuji, block: ridgeFuji, name: 'Ridge windbreak', ...site(ridgeFuji, 0.0007), coloniesPlanned: 45, gateCode: '9042' });
@@ -83,7 +83,7 @@ export async function seedRequests(world: SeedWorld) {
   await buildRequestEvent(draft, grower, 'created', at(0));
 
   world.extra.requests = {
-    splitRequestId: pear.id, openRequestId: honeycrisp.id, unansweredRequestId: plums.id, awaitingAgreementId: fujiAgreement.id,
+    splitRequestId: pear.id, openRequestId: braeburn.id, unansweredRequestId: plums.id, awaitingAgreementId: fujiAgreement.id,
     deliveredPlacementId: pearPlaced.id, scheduledPlacementId: pearWaiting.id, pickedUpPlacementId: cherryPlaced.id, draftRequestId: draft.id,
   };
 }

@@ -42,7 +42,7 @@ async function ensureColoniesNear(world: SeedWorld, block: BuiltBlock) {
 export async function seedSprays(world: SeedWorld) {
   const handles = world.extra.blocks as SeedBlocks | undefined;
   if (!handles) return;
-  const { benchPear, benchGala, benchHoneycrisp } = handles.blocks;
+  const { benchPear, benchGala, benchBraeburn } = handles.blocks;
   const ctx = await seedContext(world.today);
   const applicator = world.users.applicator;
   const dayStart = Date.UTC(world.today.getUTCFullYear(), world.today.getUTCMonth(), world.today.getUTCDate());
@@ -50,19 +50,19 @@ export async function seedSprays(world: SeedWorld) {
   await ensureColoniesNear(world, benchPear);
   // Tomorrow 13:00 UTC (early morning in the valley) on the pear block in bloom, no label data entered yet.
   const planned = await planSpray(ctx, applicator, sprayInput({
-    blockIds: [benchPear.id], startsAt: new Date(dayStart + DAY + 13 * HOUR), hours: 3, productName: 'Moth Shield 2EC', epaRegNo: '1234-56',
-    activeIngredients: ['example organophosphate'], targetPest: 'Codling moth', applicatorName: world.users.applicator.name, notes: 'Ground rig, north to south',
+    blockIds: [benchPear.id], startsAt: new Date(dayStart + DAY + 13 * HOUR), hours: 3, productName: 'Quillfen 2EC (invented for the demo)', epaRegNo: '90001-11',
+    activeIngredients: ['an invented organophosphate'], targetPest: 'Codling moth', applicatorName: world.users.applicator.name, notes: 'Ground rig, north to south',
   }));
   world.extra.sprays = { plannedId: planned.spray.id };
 
   const applied = await planSpray(ctx, applicator, sprayInput({
-    blockIds: [benchGala.id], startsAt: new Date(dayStart - 4 * DAY + 4 * HOUR), hours: 2, productName: 'Kelpwash Foliar', epaRegNo: '1234-78-9012',
+    blockIds: [benchGala.id], startsAt: new Date(dayStart - 4 * DAY + 4 * HOUR), hours: 2, productName: 'Marrowkelp Foliar (invented for the demo)', epaRegNo: '90001-12-90105',
     activeIngredients: ['kelp extract'], ld50UgPerBee: 100, rt25Hours: 2, targetPest: null, applicatorName: world.users.applicator.name,
   }));
   await applySpray(ctx, applicator, applied.spray.id, new Date(dayStart - 4 * DAY + 4.5 * HOUR));
 
   const cancelled = await planSpray(ctx, applicator, sprayInput({
-    blockIds: [benchHoneycrisp.id], startsAt: new Date(dayStart + 6 * DAY + 5 * HOUR), hours: 2, productName: 'Orchard Guard 2EC', epaRegNo: '1234-56',
+    blockIds: [benchBraeburn.id], startsAt: new Date(dayStart + 6 * DAY + 5 * HOUR), hours: 2, productName: 'Tansybar 50WP (invented for the demo)', epaRegNo: '90002-7',
     ld50UgPerBee: 0.5, rt25Hours: 30, targetPest: 'Codling moth',
   }));
   await cancelSpray(ctx, applicator, cancelled.spray.id);

@@ -7,14 +7,6 @@ import type { ProductBeeHazard } from './bee-toxicity.js';
 export const conflictGrades = ['label-bar', 'colonies-exposed', 'bloom-spray', 'short-notice', 'flight-hours'] as const;
 export type ConflictGrade = (typeof conflictGrades)[number];
 
-export const conflictGradeLabels: Record<ConflictGrade, string> = {
-  'label-bar': 'Barred during bloom',
-  'colonies-exposed': 'Colonies in the residue window',
-  'bloom-spray': 'Toxic spray on bloom',
-  'short-notice': 'Short notice',
-  'flight-hours': 'While bees fly',
-};
-
 /** What the search found for one group of colonies (one apiary business), or for the bloom alone. */
 export interface FoundOverlap {
   hazard: ProductBeeHazard;
@@ -49,11 +41,11 @@ const km = (m: number) => (m < 1000 ? `${Math.round(m)} m` : `${(m / 1000).toFix
 /** The grades that apply to one overlap, most serious first, or null when nothing does. */
 export function gradeConflict(o: FoundOverlap): GradedConflict | null {
   const found = new Map<ConflictGrade, string>();
-  const unknownNote = o.hazard.assumed.ld50 ? ' (no LD50 entered, so it is treated as highly toxic until the label data are entered)' : '';
+  const unknownNote = o.hazard.assumed.ld50 ? ' (no LD50 entered, so it is treated as highly toxic until one is entered)' : '';
   const toxic = o.hazard.toxicityClass !== 'practically-nontoxic';
 
   if (o.hazard.acutelyToxic && o.duringBloom && o.contractedOnSprayedBlock) {
-    found.set('label-bar', `An acutely toxic product${unknownNote} is planned on a block in bloom while ${o.colonies} contracted colonies are on it. Under EPA's 2017 bee policy, affected labels do not allow this.`);
+    found.set('label-bar', `An acutely toxic product${unknownNote} is planned on a block in bloom while ${o.colonies} contracted colonies are on it. Check the product's label: under EPA's 2017 bee policy, many labels of acutely toxic products restrict spraying in bloom while contracted colonies are present.`);
   }
   if (toxic && o.colonies > 0) {
     const residue = o.hazard.assumed.rt25 ? `${o.hazard.residualHours} h assumed (no RT25 entered)` : `RT25 ${o.hazard.residualHours} h`;

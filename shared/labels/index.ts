@@ -8,8 +8,8 @@ import { alertStateSet, alertActionSet, alertResponseSet } from './alerts.js';
 import { invoiceStatusSet, pricedLineSet, paymentStateSet, paymentMethodSet } from './invoices.js';
 import { organizationKindSet, memberRoleSet } from './organizations.js';
 import { cropSet } from './crops.js';
-import { jobStateSet } from './jobs.js';
-import { timelineItemKindSet, mapFeatureKindSet } from './season.js';
+import { jobStateSet, queueSet } from './jobs.js';
+import { timelineItemKindSet, mapFeatureKindSet, bloomStateSet } from './season.js';
 
 export { labelOf, type LabelSet } from './label-set.js';
 
@@ -21,6 +21,6 @@ export const labelSets: readonly LabelSet[] = [
   alertStateSet, alertActionSet, alertResponseSet,
   invoiceStatusSet, pricedLineSet, paymentStateSet, paymentMethodSet,
   organizationKindSet, memberRoleSet,
-  cropSet, jobStateSet,
-  timelineItemKindSet, mapFeatureKindSet,
+  cropSet, jobStateSet, queueSet,
+  timelineItemKindSet, mapFeatureKindSet, bloomStateSet,
 ];

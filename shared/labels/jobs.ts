@@ -13,3 +13,16 @@ export const jobStateSet = labelSet<JobState>('queue job states', jobStates, {
   cancelled: 'Cancelled',
   failed: 'Failed',
 });
+
+/** The background queues (server/src/jobs/queue-names.ts). */
+export const queueCodes = ['email-send', 'invoice-overdue-reminders', 'invoice-email', 'bloom-digest', 'conflict-recheck', 'alert-publish'] as const;
+export type QueueCode = (typeof queueCodes)[number];
+
+export const queueSet = labelSet<QueueCode>('background queues', queueCodes, {
+  'email-send': 'E-mails to send',
+  'invoice-overdue-reminders': 'Overdue invoice reminders',
+  'invoice-email': 'Invoices to e-mail',
+  'bloom-digest': 'Bloom window digests',
+  'conflict-recheck': 'Spray conflict re-checks',
+  'alert-publish': 'Spray alerts to announce',
+});

@@ -19,3 +19,14 @@ export const mapFeatureKindSet = labelSet<MapFeatureKind>('map features', mapFea
   yard: 'Yard',
   'spray-buffer': 'Spray buffer',
 });
+
+/** Where a block's bloom stands today (the grower's overview). */
+export const bloomStates = ['no-forecast', 'before-bloom', 'in-bloom', 'after-bloom'] as const;
+export type BloomState = (typeof bloomStates)[number];
+
+export const bloomStateSet = labelSet<BloomState>('bloom states', bloomStates, {
+  'no-forecast': 'No forecast',
+  'before-bloom': 'Before bloom',
+  'in-bloom': 'In bloom',
+  'after-bloom': 'Past petal fall',
+});

@@ -13,13 +13,6 @@ export const apiaryResponses = ['will-move-colonies', 'will-close-colonies', 'no
 export const farmResponses = ['will-reschedule', 'will-change-product', 'noted'] as const;
 export const alertResponses = ['will-move-colonies', 'will-close-colonies', 'will-reschedule', 'will-change-product', 'noted'] as const;
 export type AlertResponse = (typeof alertResponses)[number];
-export const alertResponseLabels: Record<AlertResponse, string> = {
-  'will-move-colonies': 'We will move the colonies out of range',
-  'will-close-colonies': 'We will close the colonies in for the spray',
-  'will-reschedule': 'We will reschedule the spray',
-  'will-change-product': 'We will use a product safer for bees',
-  noted: 'Noted, no change',
-};
 
 export const alertAnswerSchema = z.object({
   response: z.enum(alertResponses, { message: `must be one of ${alertResponses.join(', ')}` }),
@@ -60,7 +53,8 @@ export interface AlertDto {
   grades: ConflictGrade[];
   reasons: string[];
   cautions: string[];
-  farm: { id: string; name: string };
+  /** timeZone: the farm's, in which its sprays are planned and shown. */
+  farm: { id: string; name: string; timeZone: string };
   apiary: { id: string; name: string } | null;
   spray: { id: string; state: SprayState; productName: string; epaRegNo: string | null; startsAt: string; endsAt: string; blockNames: string[] };
   findings: AlertFinding;

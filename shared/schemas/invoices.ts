@@ -5,7 +5,7 @@ import { z } from 'zod';
 import { idSchema, isoDateSchema } from './common.js';
 import { invoiceStatuses, type InvoiceStatus, type PricedLineKind } from '../domain/invoice-pricing.js';
 
-const cents = z.number({ message: 'must be an amount in cents' }).int('must be whole cents').positive('must be more than zero').max(100_000_000, 'is too large');
+const cents = z.number({ message: 'must be an amount of money' }).int('must be rounded to the cent').positive('must be more than zero').max(100_000_000, 'is too large');
 const note = z.string().trim().max(1000, 'must be at most 1000 characters');
 
 export const invoiceStatusSchema = z.enum(invoiceStatuses);

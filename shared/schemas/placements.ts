@@ -5,11 +5,6 @@ import type { StrengthSummary } from '../domain/strength-check.js';
 
 export const placementStates = ['scheduled', 'delivered', 'picked-up'] as const;
 export type PlacementState = (typeof placementStates)[number];
-export const placementStateLabels: Record<PlacementState, string> = {
-  scheduled: 'Not yet delivered',
-  delivered: 'On site',
-  'picked-up': 'Picked up',
-};
 
 const count = z.int('must be a whole number').min(0, 'must be zero or more').max(100_000);
 const frames = z.number('must be a number').min(0, 'must be zero or more').max(30, 'is at most 30');

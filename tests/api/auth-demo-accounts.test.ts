@@ -10,8 +10,8 @@ const demoAccounts: Array<[email: string, kind: 'farm' | 'apiary' | null, role: 
   ['grower@orchard.test', 'farm', 'owner', 'Larkspur Bench Orchards'],
   ['applicator@orchard.test', 'farm', 'applicator', 'Larkspur Bench Orchards'],
   ['grower2@ridge.test', 'farm', 'owner', 'Cinder Ridge Fruit Co.'],
-  ['keeper@apiary.test', 'apiary', 'owner', 'Tallowmere Apiaries'],
-  ['crew@apiary.test', 'apiary', 'crew', 'Tallowmere Apiaries'],
+  ['keeper@apiary.test', 'apiary', 'owner', 'Fernhollow Apiaries'],
+  ['crew@apiary.test', 'apiary', 'crew', 'Fernhollow Apiaries'],
   ['keeper2@hives.test', 'apiary', 'owner', 'Brightcomb Hive Works'],
   ['admin@pollenpact.test', null, 'admin', null],
 ];

@@ -38,7 +38,7 @@ describe('demo seed: blocks, weather and bloom', () => {
   it('has bloom happening around today on the first farm', async () => {
     const grower = await signedInClient(t.app, 'grower@orchard.test');
     const blocks = (await grower.get('/api/blocks').expect(200)).body.blocks as BlockDto[];
-    expect(blocks.map((b) => b.name).sort()).toEqual(['Creekside Honeycrisp', 'Millrace Pears', 'South Slope Cherries', 'Upper Bench Gala']);
+    expect(blocks.map((b) => b.name).sort()).toEqual(['Creekside Braeburn', 'Millrace Pears', 'South Slope Cherries', 'Upper Bench Gala']);
     const gala = blocks.find((b) => b.name === 'Upper Bench Gala')!;
     const window = gala.bloomWindow!;
     const start = Date.parse(`${window.bloomStart}T00:00:00Z`);
@@ -64,7 +64,8 @@ describe('demo seed: blocks, weather and bloom', () => {
     await eraseAllData(t.context.sequelize);
     world = await seed(today);
     const grower = await signedInClient(t.app, 'grower@orchard.test');
-    expect((await grower.get('/api/bloom/stage-thresholds?crop=apple').expect(200)).body.thresholds).toHaveLength(4);
+    // Seven apple stages, one per WSU critical-temperature row (published-reference.ts).
+    expect((await grower.get('/api/bloom/stage-thresholds?crop=apple').expect(200)).body.thresholds).toHaveLength(7);
     expect((await grower.get('/api/bloom/frost-critical').expect(200)).body.critical.length).toBeGreaterThanOrEqual(24);
   });
 });

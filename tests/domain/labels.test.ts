@@ -6,6 +6,8 @@ import { join } from 'node:path';
 import { labelSets, labelOf } from '../../shared/labels/index.js';
 import { requestEventSet } from '../../shared/labels/requests.js';
 import { amendmentStateSet } from '../../shared/labels/agreements.js';
+import { queueSet } from '../../shared/labels/jobs.js';
+import { queueNames } from '../../server/src/jobs/queue-names.js';
 
 const kebabCode = /\b[a-z]+(?:-[a-z]+)+\b/;
 const camelKey = /\b[a-z]+[A-Z][A-Za-z]*\b/;
@@ -53,5 +55,9 @@ describe('label sets', () => {
     }
     expect(recorded.size).toBeGreaterThan(10);
     for (const action of recorded) expect(requestEventSet.codes, `history action "${action}" has no words`).toContain(action);
+  });
+
+  it('names every background queue the server has', () => {
+    expect([...queueSet.codes].sort()).toEqual(Object.values(queueNames).sort());
   });
 });

@@ -38,5 +38,5 @@ export const mapLegend: LegendEntry[] = [
 const byKey = new Map([...timelineLegend, ...mapLegend].map((e) => [e.key, e]));
 
 export function legendEntry(key: string): LegendEntry {
-  return byKey.get(key) ?? { key, label: key, fill: straw[300], stroke: straw[700], shape: 'area' };
+  return byKey.get(key) ?? { key, label: 'Other', fill: straw[300], stroke: straw[700], shape: 'area' };
 }

@@ -8,6 +8,8 @@ import { notFound } from '../../errors/http-errors.js';
 import { seasonClock, type SeasonClock } from './season-clock.js';
 import { coloniesNeeded } from '../../../../shared/domain/stocking.js';
 import { createSeasonExtras } from './season-extras.js';
+import { cropSet } from '../../../../shared/labels/crops.js';
+import { labelOf } from '../../../../shared/labels/label-set.js';
 import {
   selectGrowerBlocks, selectGrowerColonySums, selectCommittedSpan, selectCommittedWeeks, selectMovesDue, selectTimelineBlocks, selectTimelineBloom,
   selectTimelinePlacements, selectMapBlocks, selectMapDropSites, selectMapYards,
@@ -174,7 +176,7 @@ export function createDashboardService(ctx: AppContext) {
       const features: SeasonMapFeature[] = [
         ...blocks.map((b) => {
           const state = bloomState(clock.today, b.bloom_start ? { bloomStart: b.bloom_start, fullBloom: null, petalFall: b.petal_fall! } : null);
-          return feature(b.id, b.geometry, { kind: 'block', name: b.name, state, detail: `${b.crop} · ${b.farm_name}` });
+          return feature(b.id, b.geometry, { kind: 'block', name: b.name, state, detail: `${labelOf(cropSet, b.crop)} · ${b.farm_name}` });
         }),
         ...buffers,
         ...sites.map((s) =>
