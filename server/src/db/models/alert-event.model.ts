@@ -19,7 +19,9 @@ export class AlertEvent extends Model<InferAttributes<AlertEvent>, InferCreation
 }
 
 export function defineAlertEvent(sequelize: Sequelize): typeof AlertEvent {
-  AlertEvent.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends AlertEvent {}
+  Bound.init(
     {
       id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
       alertId: { type: DataTypes.UUID, allowNull: false },
@@ -33,5 +35,5 @@ export function defineAlertEvent(sequelize: Sequelize): typeof AlertEvent {
     },
     { sequelize, modelName: 'AlertEvent', tableName: 'alert_events', updatedAt: false },
   );
-  return AlertEvent;
+  return Bound;
 }

@@ -9,7 +9,9 @@ export class AlertView extends Model<InferAttributes<AlertView>, InferCreationAt
 }
 
 export function defineAlertView(sequelize: Sequelize): typeof AlertView {
-  AlertView.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends AlertView {}
+  Bound.init(
     {
       alertId: { type: DataTypes.UUID, primaryKey: true },
       organizationId: { type: DataTypes.UUID, primaryKey: true },
@@ -18,5 +20,5 @@ export function defineAlertView(sequelize: Sequelize): typeof AlertView {
     },
     { sequelize, modelName: 'AlertView', tableName: 'alert_views', timestamps: false },
   );
-  return AlertView;
+  return Bound;
 }

@@ -26,7 +26,9 @@ export class Alert extends Model<InferAttributes<Alert>, InferCreationAttributes
 }
 
 export function defineAlert(sequelize: Sequelize): typeof Alert {
-  Alert.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends Alert {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       sprayPlanId: { type: DataTypes.UUID, allowNull: false },
@@ -45,5 +47,5 @@ export function defineAlert(sequelize: Sequelize): typeof Alert {
     },
     { sequelize, modelName: 'Alert', tableName: 'alerts' },
   );
-  return Alert;
+  return Bound;
 }

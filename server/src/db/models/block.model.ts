@@ -29,7 +29,9 @@ export class Block extends Model<InferAttributes<Block>, InferCreationAttributes
 }
 
 export function defineBlock(sequelize: Sequelize): typeof Block {
-  Block.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends Block {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       farmId: { type: DataTypes.UUID, allowNull: false },
@@ -56,5 +58,5 @@ export function defineBlock(sequelize: Sequelize): typeof Block {
       scopes: { ofFarm: (farmId: string) => ({ where: { farmId } }) },
     },
   );
-  return Block;
+  return Bound;
 }

@@ -7,12 +7,14 @@ export class BloomDigestMark extends Model<InferAttributes<BloomDigestMark>, Inf
 }
 
 export function defineBloomDigestMark(sequelize: Sequelize): typeof BloomDigestMark {
-  BloomDigestMark.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends BloomDigestMark {}
+  Bound.init(
     {
       apiaryId: { type: DataTypes.UUID, primaryKey: true },
       reportedThrough: { type: DataTypes.DATE, allowNull: false },
     },
     { sequelize, modelName: 'BloomDigestMark', tableName: 'bloom_digest_marks', underscored: true, timestamps: false },
   );
-  return BloomDigestMark;
+  return Bound;
 }

@@ -18,7 +18,9 @@ export class BloomWindow extends Model<InferAttributes<BloomWindow>, InferCreati
 }
 
 export function defineBloomWindow(sequelize: Sequelize): typeof BloomWindow {
-  BloomWindow.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends BloomWindow {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       blockId: { type: DataTypes.UUID, allowNull: false },
@@ -32,5 +34,5 @@ export function defineBloomWindow(sequelize: Sequelize): typeof BloomWindow {
     },
     { sequelize, modelName: 'BloomWindow', tableName: 'bloom_windows', underscored: true, updatedAt: false },
   );
-  return BloomWindow;
+  return Bound;
 }

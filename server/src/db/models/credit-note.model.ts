@@ -13,7 +13,9 @@ export class CreditNote extends Model<InferAttributes<CreditNote>, InferCreation
 }
 
 export function defineCreditNote(sequelize: Sequelize): typeof CreditNote {
-  CreditNote.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends CreditNote {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       invoiceId: { type: DataTypes.UUID, allowNull: false },
@@ -26,5 +28,5 @@ export function defineCreditNote(sequelize: Sequelize): typeof CreditNote {
     },
     { sequelize, modelName: 'CreditNote', tableName: 'credit_notes', updatedAt: false },
   );
-  return CreditNote;
+  return Bound;
 }

@@ -24,7 +24,9 @@ export class CropStageThreshold extends Model<InferAttributes<CropStageThreshold
 }
 
 export function defineCropStageThreshold(sequelize: Sequelize): typeof CropStageThreshold {
-  CropStageThreshold.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends CropStageThreshold {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       farmId: { type: DataTypes.UUID, allowNull: true },
@@ -46,5 +48,5 @@ export function defineCropStageThreshold(sequelize: Sequelize): typeof CropStage
     },
     { sequelize, modelName: 'CropStageThreshold', tableName: 'crop_stage_thresholds', underscored: true },
   );
-  return CropStageThreshold;
+  return Bound;
 }

@@ -13,7 +13,9 @@ export class DailyTemperature extends Model<InferAttributes<DailyTemperature>, I
 }
 
 export function defineDailyTemperature(sequelize: Sequelize): typeof DailyTemperature {
-  DailyTemperature.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends DailyTemperature {}
+  Bound.init(
     {
       stationId: { type: DataTypes.UUID, primaryKey: true },
       day: { type: DataTypes.DATEONLY, primaryKey: true },
@@ -26,5 +28,5 @@ export function defineDailyTemperature(sequelize: Sequelize): typeof DailyTemper
     },
     { sequelize, modelName: 'DailyTemperature', tableName: 'daily_temperatures', underscored: true },
   );
-  return DailyTemperature;
+  return Bound;
 }

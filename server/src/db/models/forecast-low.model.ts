@@ -11,7 +11,9 @@ export class ForecastLow extends Model<InferAttributes<ForecastLow>, InferCreati
 }
 
 export function defineForecastLow(sequelize: Sequelize): typeof ForecastLow {
-  ForecastLow.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends ForecastLow {}
+  Bound.init(
     {
       stationId: { type: DataTypes.UUID, primaryKey: true },
       day: { type: DataTypes.DATEONLY, primaryKey: true },
@@ -22,5 +24,5 @@ export function defineForecastLow(sequelize: Sequelize): typeof ForecastLow {
     },
     { sequelize, modelName: 'ForecastLow', tableName: 'forecast_lows', underscored: true },
   );
-  return ForecastLow;
+  return Bound;
 }

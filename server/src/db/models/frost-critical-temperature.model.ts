@@ -15,7 +15,9 @@ export class FrostCriticalTemperature extends Model<InferAttributes<FrostCritica
 }
 
 export function defineFrostCriticalTemperature(sequelize: Sequelize): typeof FrostCriticalTemperature {
-  FrostCriticalTemperature.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends FrostCriticalTemperature {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       crop: { type: DataTypes.TEXT, allowNull: false },
@@ -30,5 +32,5 @@ export function defineFrostCriticalTemperature(sequelize: Sequelize): typeof Fro
     },
     { sequelize, modelName: 'FrostCriticalTemperature', tableName: 'frost_critical_temperatures', underscored: true, createdAt: false },
   );
-  return FrostCriticalTemperature;
+  return Bound;
 }

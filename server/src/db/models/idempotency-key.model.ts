@@ -16,7 +16,9 @@ export class IdempotencyKey extends Model<InferAttributes<IdempotencyKey>, Infer
 }
 
 export function defineIdempotencyKey(sequelize: Sequelize): typeof IdempotencyKey {
-  IdempotencyKey.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends IdempotencyKey {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       userId: { type: DataTypes.UUID, allowNull: false },
@@ -31,5 +33,5 @@ export function defineIdempotencyKey(sequelize: Sequelize): typeof IdempotencyKe
     },
     { sequelize, modelName: 'IdempotencyKey', tableName: 'idempotency_keys', underscored: true, timestamps: false },
   );
-  return IdempotencyKey;
+  return Bound;
 }

@@ -22,7 +22,9 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
 }
 
 export function defineInvitation(sequelize: Sequelize): typeof Invitation {
-  Invitation.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends Invitation {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       organizationId: { type: DataTypes.UUID, allowNull: false },
@@ -38,5 +40,5 @@ export function defineInvitation(sequelize: Sequelize): typeof Invitation {
     },
     { sequelize, modelName: 'Invitation', tableName: 'invitations' },
   );
-  return Invitation;
+  return Bound;
 }

@@ -15,7 +15,9 @@ export class InvoiceLine extends Model<InferAttributes<InvoiceLine>, InferCreati
 }
 
 export function defineInvoiceLine(sequelize: Sequelize): typeof InvoiceLine {
-  InvoiceLine.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends InvoiceLine {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       invoiceId: { type: DataTypes.UUID, allowNull: false },
@@ -29,5 +31,5 @@ export function defineInvoiceLine(sequelize: Sequelize): typeof InvoiceLine {
     },
     { sequelize, modelName: 'InvoiceLine', tableName: 'invoice_lines', timestamps: false },
   );
-  return InvoiceLine;
+  return Bound;
 }

@@ -9,7 +9,9 @@ export class InvoiceNumberCounter extends Model<InferAttributes<InvoiceNumberCou
 }
 
 export function defineInvoiceNumberCounter(sequelize: Sequelize): typeof InvoiceNumberCounter {
-  InvoiceNumberCounter.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends InvoiceNumberCounter {}
+  Bound.init(
     {
       apiaryId: { type: DataTypes.UUID, primaryKey: true },
       series: { type: DataTypes.TEXT, primaryKey: true },
@@ -17,5 +19,5 @@ export function defineInvoiceNumberCounter(sequelize: Sequelize): typeof Invoice
     },
     { sequelize, modelName: 'InvoiceNumberCounter', tableName: 'invoice_number_counters', timestamps: false },
   );
-  return InvoiceNumberCounter;
+  return Bound;
 }

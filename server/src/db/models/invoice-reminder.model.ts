@@ -11,7 +11,9 @@ export class InvoiceReminder extends Model<InferAttributes<InvoiceReminder>, Inf
 }
 
 export function defineInvoiceReminder(sequelize: Sequelize): typeof InvoiceReminder {
-  InvoiceReminder.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends InvoiceReminder {}
+  Bound.init(
     {
       // bigserial: pg answers it as a string.
       id: { type: DataTypes.BIGINT, primaryKey: true, autoIncrement: true },
@@ -22,5 +24,5 @@ export function defineInvoiceReminder(sequelize: Sequelize): typeof InvoiceRemin
     },
     { sequelize, modelName: 'InvoiceReminder', tableName: 'invoice_reminders', timestamps: false },
   );
-  return InvoiceReminder;
+  return Bound;
 }

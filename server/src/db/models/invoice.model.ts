@@ -34,7 +34,9 @@ export class Invoice extends Model<InferAttributes<Invoice>, InferCreationAttrib
 }
 
 export function defineInvoice(sequelize: Sequelize): typeof Invoice {
-  Invoice.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends Invoice {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       agreementId: { type: DataTypes.UUID, allowNull: false },
@@ -66,5 +68,5 @@ export function defineInvoice(sequelize: Sequelize): typeof Invoice {
     },
     { sequelize, modelName: 'Invoice', tableName: 'invoices' },
   );
-  return Invoice;
+  return Bound;
 }

@@ -17,7 +17,9 @@ export class Organization extends Model<InferAttributes<Organization>, InferCrea
 }
 
 export function defineOrganization(sequelize: Sequelize): typeof Organization {
-  Organization.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends Organization {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       kind: { type: DataTypes.TEXT, allowNull: false },
@@ -33,5 +35,5 @@ export function defineOrganization(sequelize: Sequelize): typeof Organization {
     },
     { sequelize, modelName: 'Organization', tableName: 'organizations' },
   );
-  return Organization;
+  return Bound;
 }

@@ -11,7 +11,9 @@ export class PasswordResetToken extends Model<InferAttributes<PasswordResetToken
 }
 
 export function definePasswordResetToken(sequelize: Sequelize): typeof PasswordResetToken {
-  PasswordResetToken.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends PasswordResetToken {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       userId: { type: DataTypes.UUID, allowNull: false },
@@ -22,5 +24,5 @@ export function definePasswordResetToken(sequelize: Sequelize): typeof PasswordR
     },
     { sequelize, modelName: 'PasswordResetToken', tableName: 'password_reset_tokens', updatedAt: false },
   );
-  return PasswordResetToken;
+  return Bound;
 }

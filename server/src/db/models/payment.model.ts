@@ -21,7 +21,9 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
 }
 
 export function definePayment(sequelize: Sequelize): typeof Payment {
-  Payment.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends Payment {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       invoiceId: { type: DataTypes.UUID, allowNull: false },
@@ -40,5 +42,5 @@ export function definePayment(sequelize: Sequelize): typeof Payment {
     },
     { sequelize, modelName: 'Payment', tableName: 'payments' },
   );
-  return Payment;
+  return Bound;
 }

@@ -14,7 +14,9 @@ export class PestModel extends Model<InferAttributes<PestModel>, InferCreationAt
 }
 
 export function definePestModel(sequelize: Sequelize): typeof PestModel {
-  PestModel.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends PestModel {}
+  Bound.init(
     {
       id: { type: DataTypes.TEXT, primaryKey: true },
       name: { type: DataTypes.TEXT, allowNull: false },
@@ -28,5 +30,5 @@ export function definePestModel(sequelize: Sequelize): typeof PestModel {
     },
     { sequelize, modelName: 'PestModel', tableName: 'pest_models', timestamps: false },
   );
-  return PestModel;
+  return Bound;
 }

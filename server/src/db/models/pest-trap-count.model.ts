@@ -12,7 +12,9 @@ export class PestTrapCount extends Model<InferAttributes<PestTrapCount>, InferCr
 }
 
 export function definePestTrapCount(sequelize: Sequelize): typeof PestTrapCount {
-  PestTrapCount.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends PestTrapCount {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       blockId: { type: DataTypes.UUID, allowNull: false },
@@ -24,5 +26,5 @@ export function definePestTrapCount(sequelize: Sequelize): typeof PestTrapCount 
     },
     { sequelize, modelName: 'PestTrapCount', tableName: 'pest_trap_counts', updatedAt: false },
   );
-  return PestTrapCount;
+  return Bound;
 }

@@ -9,7 +9,9 @@ export class ProcessedWebhookEvent extends Model<InferAttributes<ProcessedWebhoo
 }
 
 export function defineProcessedWebhookEvent(sequelize: Sequelize): typeof ProcessedWebhookEvent {
-  ProcessedWebhookEvent.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends ProcessedWebhookEvent {}
+  Bound.init(
     {
       eventId: { type: DataTypes.TEXT, primaryKey: true },
       type: { type: DataTypes.TEXT, allowNull: false },
@@ -17,5 +19,5 @@ export function defineProcessedWebhookEvent(sequelize: Sequelize): typeof Proces
     },
     { sequelize, modelName: 'ProcessedWebhookEvent', tableName: 'processed_webhook_events', timestamps: false },
   );
-  return ProcessedWebhookEvent;
+  return Bound;
 }

@@ -15,7 +15,9 @@ export class Refund extends Model<InferAttributes<Refund>, InferCreationAttribut
 }
 
 export function defineRefund(sequelize: Sequelize): typeof Refund {
-  Refund.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends Refund {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       invoiceId: { type: DataTypes.UUID, allowNull: false },
@@ -30,5 +32,5 @@ export function defineRefund(sequelize: Sequelize): typeof Refund {
     },
     { sequelize, modelName: 'Refund', tableName: 'refunds' },
   );
-  return Refund;
+  return Bound;
 }

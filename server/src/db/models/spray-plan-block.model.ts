@@ -9,12 +9,14 @@ export class SprayPlanBlock extends Model<InferAttributes<SprayPlanBlock>, Infer
 }
 
 export function defineSprayPlanBlock(sequelize: Sequelize): typeof SprayPlanBlock {
-  SprayPlanBlock.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends SprayPlanBlock {}
+  Bound.init(
     {
       sprayPlanId: { type: DataTypes.UUID, primaryKey: true },
       blockId: { type: DataTypes.UUID, primaryKey: true },
     },
     { sequelize, modelName: 'SprayPlanBlock', tableName: 'spray_plan_blocks', timestamps: false },
   );
-  return SprayPlanBlock;
+  return Bound;
 }

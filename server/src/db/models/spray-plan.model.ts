@@ -32,7 +32,9 @@ export class SprayPlan extends Model<InferAttributes<SprayPlan>, InferCreationAt
 }
 
 export function defineSprayPlan(sequelize: Sequelize): typeof SprayPlan {
-  SprayPlan.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends SprayPlan {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       farmId: { type: DataTypes.UUID, allowNull: false },
@@ -55,5 +57,5 @@ export function defineSprayPlan(sequelize: Sequelize): typeof SprayPlan {
     },
     { sequelize, modelName: 'SprayPlan', tableName: 'spray_plans' },
   );
-  return SprayPlan;
+  return Bound;
 }

@@ -20,7 +20,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
 }
 
 export function defineUser(sequelize: Sequelize): typeof User {
-  User.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends User {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       organizationId: { type: DataTypes.UUID, allowNull: true },
@@ -37,5 +39,5 @@ export function defineUser(sequelize: Sequelize): typeof User {
     },
     { sequelize, modelName: 'User', tableName: 'users' },
   );
-  return User;
+  return Bound;
 }

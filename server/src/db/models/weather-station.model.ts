@@ -13,7 +13,9 @@ export class WeatherStation extends Model<InferAttributes<WeatherStation>, Infer
 }
 
 export function defineWeatherStation(sequelize: Sequelize): typeof WeatherStation {
-  WeatherStation.init(
+  // A subclass per Sequelize instance, so each app keeps its own models.
+  class Bound extends WeatherStation {}
+  Bound.init(
     {
       id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
       farmId: { type: DataTypes.UUID, allowNull: false },
@@ -29,5 +31,5 @@ export function defineWeatherStation(sequelize: Sequelize): typeof WeatherStatio
       scopes: { ofFarm: (farmId: string) => ({ where: { farmId } }) },
     },
   );
-  return WeatherStation;
+  return Bound;
 }
