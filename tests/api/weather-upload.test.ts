@@ -112,6 +112,22 @@ describe('/api/weather/stations', () => {
     expect(res.body.chill.source).toMatch(/Utah model/);
   });
 
+  it('starts Utah chill the day after the fall total is most negative, and says so', async () => {
+    // Source: Richardson, Seeley & Walker 1974, HortScience 9:331–332 (Utah model): counting starts at the fall's most
+    // negative running total (from memory of the paper). Above 65 °F an hour loses 1 unit (-24 a day at 70–90 °F);
+    // 37–48 °F earns 1 (24 a day at 40 °F).
+    const res0 = await grower.post('/api/weather/stations', { name: 'Wren hollow', location: { type: 'Point', coordinates: [-119.8, 44.8] }, timeZone: 'America/Los_Angeles' }).expect(201);
+    const hollow = res0.body.station as StationDto;
+    const local = new Date(new Date().toLocaleString('en-US', { timeZone: 'America/Los_Angeles' }));
+    const fall = local.getMonth() >= 8 ? local.getFullYear() : local.getFullYear() - 1; // September 1 of this winter
+    const day = (n: number) => `${fall}-09-${String(n).padStart(2, '0')}`;
+    for (let n = 1; n <= 4; n += 1) await grower.put(`/api/weather/stations/${hollow.id}/temperatures/${day(n)}`, { tmin: 70, tmax: 90, unit: 'F' }).expect(200);
+    for (let n = 5; n <= 7; n += 1) await grower.put(`/api/weather/stations/${hollow.id}/temperatures/${day(n)}`, { tmin: 40, tmax: 40, unit: 'F' }).expect(200);
+    const chill = (await grower.get(`/api/weather/stations/${hollow.id}/chill`).expect(200)).body.chill;
+    expect(chill).toMatchObject({ from: day(5), searchedFrom: day(1), total: 72 });
+    expect(chill.startRule).toMatch(/most negative.*Richardson/);
+  });
+
   it('takes forecast lows from a CSV, reporting bad lines the same way', async () => {
     const csv = 'date,low\n2027-03-20,28\n2027-03-21,cold\n2027-03-20,30\n2027-03-22,31\n';
     const post = (fields: Record<string, string>) => {
