@@ -172,9 +172,10 @@ describe('/api/requests', () => {
       expect((await crew.post(`/api/requests/${r.id}/close`)).status).toBe(403);
       const closed = await grower.post(`/api/requests/${r.id}/close`);
       expect(closed.body.request.state).toBe('closed');
+      // A beekeeper who took no part sees a closed request no more: it answers like a missing one.
       const late = await keeper.post(`/api/requests/${r.id}/commitments`, { colonies: 5 });
-      expect(late.status).toBe(409);
-      expect(late.body.error.code).toBe('wrong_state');
+      expect(late.status).toBe(404);
+      expect(late.body.error.code).toBe('not_found');
     });
   });
 });

@@ -64,7 +64,8 @@ export function createCommitmentsService(ctx: AppContext) {
     async offer(user: AuthUser, requestId: string, body: CommitmentBody) {
       const result = await ctx.sequelize.transaction(async (t) => {
         const request = await lockRequest(requestId, t);
-        const visible = request && (['listed', 'filled', 'closed'].includes(request.state)
+        // Visible as in reading a request: open or fully committed, or one the apiary took part in; anything else answers like a missing request.
+        const visible = request && (['listed', 'filled'].includes(request.state)
           || (await ctx.models.Commitment.count({ where: { requestId, apiaryId: user.organizationId! }, transaction: t })) > 0);
         if (!request || !visible) throw notFound('That request');
         if (request.state === 'closed' || request.state === 'withdrawn') throw wrongState(`This request is ${labelOf(requestStateSet, request.state).toLowerCase()} and takes no more commitments.`);
