@@ -78,6 +78,9 @@ describe('blocks and weather in the browser', () => {
     const greenTip = page.locator('tr[data-stage="green-tip"]');
     expect(await greenTip.innerText()).toContain(start.plus({ days: 6 }).toFormat('d LLL yyyy'));
     expect(await page.getByTestId('forecast-extension').innerText()).toMatch(/Dashed: estimated/);
+    // 480 DD°F is past apple petal fall (439–523 DD°F, Cornell / UMass): frost risk uses WSU's "Post bloom" row,
+    // 10% kill 28 °F, 90% kill 25 °F (WSU Extension EB0913 via Penn State Extension).
+    expect(await page.getByTestId('frost-stage').innerText()).toMatch(/Stage Petal fall uses the row Post bloom: 10% of buds killed at 28 °F, 90% at 25 °F/);
     await saveScreenshot(page, 'block-detail-desktop');
 
     await page.setViewportSize({ width: 360, height: 800 });
