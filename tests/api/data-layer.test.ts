@@ -82,6 +82,13 @@ function sqlOutsideQueryFiles(): Map<string, string[]> {
   return byFile;
 }
 
+/** Import lines that bring a model class in as a value (a static, process-wide class) rather than as a type. */
+function modelValueImports(text: string): string[] {
+  return [...text.matchAll(/^import\s+(?!type\b)([^;]*?)\s+from\s+'[^']*\.model\.js'/gm)]
+    .filter((m) => /\{([^}]*)\}/.exec(m[1])?.[1].split(',').some((name) => name.trim() && !name.trim().startsWith('type ')) ?? true)
+    .map((m) => m[0]);
+}
+
 function modelsUsedByModules(): Set<string> {
   const text = filesUnder(modulesDir).map((f) => readFileSync(f, 'utf8')).join('\n');
   const used = new Set<string>();
@@ -174,6 +181,18 @@ describe('the data layer', () => {
     expect(routed.length).toBeGreaterThan(10);
     expect.soft(routed.filter((m) => !has(m) && !MODULES_WITHOUT_CONTROLLER_YET.includes(m)), 'modules without a controller').toEqual([]);
     expect.soft(MODULES_WITHOUT_CONTROLLER_YET.filter((m) => has(m) || !routed.includes(m)), 'MODULES_WITHOUT_CONTROLLER_YET lists modules that have one now: remove them').toEqual([]);
+  });
+
+  it('imports model classes only as types outside the models folder (code uses the app\'s registry, ctx.models)', () => {
+    const dirs = ['server/src', 'seed', 'tests'].map((d) => join(root, d));
+    const found = dirs.flatMap(filesUnder)
+      .filter((f) => !f.includes('/server/src/db/models/'))
+      .flatMap((f) => modelValueImports(readFileSync(f, 'utf8')).map((line) => `${relative(root, f)}: ${line}`));
+    expect(found).toEqual([]);
+    // the check itself
+    expect(modelValueImports("import { Organization } from '../../db/models/organization.model.js';")).toHaveLength(1);
+    expect(modelValueImports("import { type Block, User } from './user.model.js';")).toHaveLength(1);
+    expect(modelValueImports("import type { Block } from './block.model.js';\nimport { type User } from './user.model.js';")).toEqual([]);
   });
 
   it('finds SQL text where it stands (the check itself)', () => {
