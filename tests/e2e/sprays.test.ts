@@ -8,6 +8,9 @@ import { startTestApp, type TestApp } from '../support/test-app.js';
 import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot } from '../support/browser.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildSignedSeason } from '../support/builders/season.js';
+import { buildDailyTemperatures, buildStation } from '../support/builders/weather.js';
+import { signedInClient } from '../support/api-client.js';
+import type { PestTimingDto } from '../../shared/schemas/pests.js';
 
 const DAY = 86_400_000;
 // Pages load slowly on a busy machine: give each wait a generous limit.
@@ -18,6 +21,8 @@ describe('spray plans and live alerts in the browser', () => {
   let browser: Browser;
   const zone = 'America/Los_Angeles';
   const now = new Date();
+  let blockId: string;
+  let farmId: string;
 
   beforeAll(async () => {
     t = await startTestApp();
@@ -31,6 +36,8 @@ describe('spray plans and live alerts in the browser', () => {
       bloom: { bloomStart: new Date(now.getTime() - 2 * DAY).toISOString().slice(0, 10), petalFall: new Date(now.getTime() + 10 * DAY).toISOString().slice(0, 10) },
     });
     await t.context.sequelize.query("UPDATE blocks SET name = 'Cedar Row' WHERE id = :id", { replacements: { id: season.block.id } });
+    blockId = season.block.id;
+    farmId = farm.id;
     browser = await launchBrowser();
   });
   afterAll(async () => {
@@ -96,5 +103,39 @@ describe('spray plans and live alerts in the browser', () => {
       expect(watched.externalRequests).toEqual([]);
       expect(watched.consoleErrors.filter((e) => !/status of 400/.test(e))).toEqual([]);
     }
+  });
+
+  it('shows this season\'s codling moth timing with suggested cover-spray days marked against bloom and colonies', async () => {
+    // 60–80 °F days: 20 DD°F a day over 50 °F (single sine; UC IPM, Zalom et al. 1983). Catches on two successive
+    // checks set the biofix (MSU Enviroweather codling moth model; Jones, Doerr & Brunner 2008), two days ago but
+    // never before 1 January, so the checks stay in this season; egg hatch is then predicted from normals.
+    const today = DateTime.now().setZone(zone).startOf('day');
+    const biofix = DateTime.max(today.minus({ days: 2 }), today.startOf('year'));
+    const station = await buildStation({ farm: { id: farmId }, name: 'Cedar Row mast', timeZone: zone });
+    await t.context.sequelize.query('UPDATE blocks SET weather_station_id = :station WHERE id = :blockId', { replacements: { station: station.id, blockId } });
+    await buildDailyTemperatures({ station, days: Array.from({ length: 31 }, (_, i) => ({ day: today.minus({ days: 30 - i }).toISODate()!, tminC: 15.5555556, tmaxC: 26.6666667 })) });
+    const grower = await signedInClient(t.app, 'grower@sprays-e2e.test');
+    for (const [day, moths] of [[biofix, 2], [biofix.plus({ days: 1 }), 3]] as const) {
+      await grower.post('/api/pests/trap-counts', { blockId, pestModelId: 'codling-moth', checkedOn: day.toISODate(), moths }).expect(201);
+    }
+    const expected = (await grower.get(`/api/pests/timing?blockId=${blockId}`).expect(200)).body.timing as PestTimingDto;
+    expect(expected.suggestedSprayDays.length).toBeGreaterThan(0);
+
+    const { page, consoleErrors, externalRequests } = await openWatchedPage(browser);
+    await signInThroughPage(page, t.baseUrl, 'grower@sprays-e2e.test');
+    await page.goto(`${t.baseUrl}/sprays`);
+    const card = page.getByTestId('suggested-spray-days');
+    await expect.poll(() => card.locator('li[data-day]').count(), { timeout: 40_000 }).toBe(expected.suggestedSprayDays.length);
+    for (const d of expected.suggestedSprayDays) {
+      const text = await card.locator(`li[data-day="${d.day}"]`).innerText();
+      expect(text.includes('in bloom')).toBe(d.duringBloom);
+      expect(text.includes('colonies on site')).toBe(d.coloniesOnSite);
+    }
+    expect(expected.suggestedSprayDays.some((d) => d.coloniesOnSite)).toBe(true); // colonies stay 20 days
+    expect(await card.innerText()).toMatch(/label is the law.*licensed applicator/s);
+    expect(await page.locator('#pp-pest-title').locator('..').innerText()).toContain(`Biofix ${biofix.toFormat('d LLL yyyy')}`);
+    await saveScreenshot(page, 'sprays-pest-timing');
+    expect(externalRequests).toEqual([]);
+    expect(consoleErrors).toEqual([]);
   });
 });
