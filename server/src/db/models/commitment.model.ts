@@ -44,7 +44,6 @@ export function defineCommitment(sequelize: Sequelize): typeof Commitment {
     {
       sequelize, modelName: 'Commitment', tableName: 'commitments',
       scopes: {
-        ofApiary: (apiaryId: string) => ({ where: { apiaryId } }),
         /** Offered and accepted commitments: the ones that hold colonies of a request. */
         holding: { where: { state: ['offered', 'accepted'] } },
       },
