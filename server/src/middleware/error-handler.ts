@@ -8,7 +8,7 @@ import { databaseRetryAfterSeconds, databaseUnavailable, isDatabaseUnavailable }
 import { fieldErrorsOf } from './validate.js';
 import type { ErrorBody } from '../../../shared/errors.js';
 
-type BodyParserError = Error & { type?: string; status?: number; code?: string; field?: string };
+type BodyParserError = Error & { type?: string; status?: number; code?: string };
 
 function toAppError(err: unknown): AppError | null {
   if (err instanceof AppError) return err;
@@ -17,10 +17,6 @@ function toAppError(err: unknown): AppError | null {
   if (e?.type === 'entity.parse.failed') return new AppError('malformed_json', 'The request body is not valid JSON.', 400, { body: 'is not valid JSON' });
   if (e?.type === 'entity.too.large') return new AppError('payload_too_large', 'The request body is too large.', 413, { body: 'is too large' });
   if (e?.code === 'EBADCSRFTOKEN') return new AppError('csrf_invalid', 'Your form has expired or lacks a security token; reload and try again.', 403);
-  if (e?.name === 'MulterError') {
-    const field = e.field ?? 'file';
-    return new AppError('validation_failed', `Upload refused: ${e.message}.`, e.code === 'LIMIT_FILE_SIZE' ? 413 : 400, { [field]: e.message });
-  }
   if (typeof e?.status === 'number' && e.status >= 400 && e.status < 500) return new AppError('bad_request', 'The request could not be read.', e.status, { body: 'could not be read' });
   if (isDatabaseUnavailable(err)) return databaseUnavailable();
   return null;
