@@ -15,7 +15,7 @@ export const alertResponses = ['will-move-colonies', 'will-close-colonies', 'wil
 export type AlertResponse = (typeof alertResponses)[number];
 
 export const alertAnswerSchema = z.object({
-  response: z.enum(alertResponses, { message: `must be one of ${alertResponses.join(', ')}` }),
+  response: z.enum(alertResponses, { message: 'must be one of the listed answers' }),
   note: z.string().trim().max(2000, 'must be at most 2000 characters').nullish().transform((v) => (v ? v : null)),
 });
 export type AlertAnswer = z.infer<typeof alertAnswerSchema>;

@@ -70,7 +70,7 @@ describe('hive request to delivery in the browser', () => {
     await poll(() => k.getByText('gate code shown once your agreement is confirmed by both sides').isVisible()).toBe(true);
     await k.getByLabel(/Colonies \(up to 60 still open\)/).fill('40');
     await k.getByRole('button', { name: 'Commit colonies' }).click();
-    await poll(() => k.getByText(/40 colonies · accepted/).isVisible()).toBe(true);
+    await poll(() => k.getByText(/40 colonies · Accepted/).isVisible()).toBe(true);
 
     // The second beekeeper commits the 20 still open; the request is fully committed.
     const keeper2 = await signedIn(m.people.keeper2.email);
@@ -78,7 +78,7 @@ describe('hive request to delivery in the browser', () => {
     await k2.goto(requestUrl);
     await poll(() => k2.getByLabel(/Colonies \(up to 20 still open\)/).inputValue()).toBe('20');
     await k2.getByRole('button', { name: 'Commit colonies' }).click();
-    await poll(() => k2.getByText(/20 colonies · accepted/).isVisible()).toBe(true);
+    await poll(() => k2.getByText(/20 colonies · Accepted/).isVisible()).toBe(true);
     await poll(() => g.getByText('Fully committed', { exact: true }).isVisible()).toBe(true); // live on the grower's page
 
     // Both sides confirm the first beekeeper's agreement.
@@ -101,7 +101,7 @@ describe('hive request to delivery in the browser', () => {
     await c.getByRole('link', { name: /North Galas/ }).first().click();
     await c.waitForURL(/\/placements\//);
     await poll(() => c.getByText('7719').isVisible()).toBe(true); // the gate code, now that the agreement is confirmed
-    const deliver = c.getByRole('button', { name: 'Mark delivered' });
+    const deliver = c.getByRole('button', { name: 'Mark dropped off' });
     const box = await deliver.boundingBox();
     expect(box!.height).toBeGreaterThanOrEqual(44); // a large touch target
     expect(box!.width).toBeLessThanOrEqual(360);

@@ -11,8 +11,3 @@ export const requestsApi = {
   withdraw: (id: string) => http.post<{ request: RequestDetailDto }>(`/requests/${id}/withdraw`),
   close: (id: string) => http.post<{ request: RequestDetailDto }>(`/requests/${id}/close`),
 };
-
-// Kept for the field pages until they listen through useSocketEvent() and take exportUrls from
-// ./exports (both are moving in the same change); then these two lines go.
-export { exportUrls } from './exports';
-export { onServerEvent as onSeasonEvent } from './socket';
