@@ -81,9 +81,9 @@ export async function issueDraft(db: InvoiceDatabase, invoiceId: string, apiaryI
     if (invoice.lifecycle !== 'draft') throw wrongState('This invoice has already been issued.');
     const number = await takeNextNumber(db.models, transaction, invoice.apiaryId, 'invoice');
     // The draft's deposit date is the delivery day; issuing applies the agreement's rule (agreement-billing.ts).
-    const agreement = await selectAgreementTerms(db.sequelize, invoice.apiaryId, invoice.agreementId);
+    const agreement = await db.models.Agreement.findByPk(invoice.agreementId, { attributes: ['balanceDueDays'], transaction });
     const issuedOn = DateTime.fromJSDate(at, { zone: invoice.timeZone }).toISODate();
-    const depositDue = invoice.depositDueOn && agreement ? depositDueOn(invoice.depositDueOn, issuedOn, agreement.balance_due_days) : invoice.depositDueOn;
+    const depositDue = invoice.depositDueOn && agreement ? depositDueOn(invoice.depositDueOn, issuedOn, agreement.balanceDueDays) : invoice.depositDueOn;
     await invoice.update({ lifecycle: 'issued', number, issuedAt: at, issuedBy, depositDueOn: depositDue }, { transaction });
     return number;
   });
