@@ -5,17 +5,11 @@ import type { AgreementClause } from '../domain/agreement-clauses.js';
 
 export const agreementStates = ['awaiting-signatures', 'in-force', 'completed', 'cancelled'] as const;
 export type AgreementState = (typeof agreementStates)[number];
-export const agreementStateLabels: Record<AgreementState, string> = {
-  'awaiting-signatures': 'Waiting for both sides',
-  'in-force': 'Confirmed by both',
-  completed: 'Completed',
-  cancelled: 'Cancelled',
-};
 
 /** The terms an amendment may change; at least one. */
 export const amendmentChanges = z
   .object({
-    pricePerColonyCents: z.int('must be whole cents').min(0).max(100_000_000).optional(),
+    pricePerColonyCents: z.int('must be rounded to the cent').min(0).max(100_000_000).optional(),
     expectedOnSite: z
       .object({ from: isoDateTimeSchema, to: isoDateTimeSchema })
       .refine((w) => Date.parse(w.to) > Date.parse(w.from), { message: 'must end after it starts', path: ['to'] })

@@ -4,16 +4,9 @@ import { idSchema, isDaysApartAtMost, isoDateSchema, maxWindowDays, pointSchema,
 
 export const requestStates = ['draft', 'listed', 'filled', 'closed', 'withdrawn'] as const;
 export type RequestState = (typeof requestStates)[number];
-export const requestStateLabels: Record<RequestState, string> = {
-  draft: 'Draft',
-  listed: 'Open for commitments',
-  filled: 'Fully committed',
-  closed: 'Closed',
-  withdrawn: 'Withdrawn',
-};
 
 const optionalText = (max: number) => z.string().trim().max(max, `is at most ${max} characters`).nullable().optional();
-const cents = z.int('must be whole cents').min(0, 'must be zero or more').max(100_000_000, 'is too large');
+const cents = z.int('must be rounded to the cent').min(0, 'must be zero or more').max(100_000_000, 'is too large');
 const basisPoints = (max: number) => z.int('must be whole basis points').min(0, 'must be zero or more').max(max, `is at most ${max}`);
 
 export const dropSiteInput = z.object({

@@ -68,7 +68,7 @@ describe('calendar feed and exports', () => {
     expect(summaries).toEqual(expect.arrayContaining([
       expect.stringMatching(/^SUMMARY:Expected drop-off: 40 colonies · Feed galas/),
       expect.stringMatching(/^SUMMARY:Expected pickup: 40 colonies/),
-      'SUMMARY:Delivered: 36 colonies at North lane',
+      'SUMMARY:Dropped off: 36 colonies at North lane',
     ]));
     // The delivery at 15:30 UTC, as a UTC date-time (RFC 5545 §3.3.5, form 2: trailing Z).
     expect(lines).toContain('DTSTART:20261130T153000Z');
@@ -87,14 +87,14 @@ describe('calendar feed and exports', () => {
     expect(requests.headers['content-type']).toMatch(/^text\/csv/);
     const rows = parse(requests.text, { columns: true }) as Array<Record<string, string>>;
     const row = rows.find((r) => r.title === 'Feed galas, "north"')!;
-    expect(row).toMatchObject({ state: 'listed', colonies_requested: '60', colonies_committed: '40', price_per_colony: '70.00', crops: 'apple' });
+    expect(row).toMatchObject({ state: 'Open for commitments', colonies_requested: '60', colonies_committed: '40', price_per_colony: '70.00', crops: 'Apple' });
 
     const agreements = parse((await keeper.get('/api/exports/agreements.csv')).text, { columns: true }) as Array<Record<string, string>>;
     expect(agreements).toHaveLength(1);
-    expect(agreements[0]).toMatchObject({ id: agreementId, state: 'in-force', colonies: '40' });
+    expect(agreements[0]).toMatchObject({ id: agreementId, state: 'Confirmed by both', colonies: '40' });
 
     const placements = parse((await grower.get('/api/exports/placements.csv')).text, { columns: true }) as Array<Record<string, string>>;
-    expect(placements.map((p) => [p.drop_site, p.state, p.colonies_delivered])).toEqual([['South gate', 'scheduled', ''], ['North lane', 'delivered', '36']]);
+    expect(placements.map((p) => [p.drop_site, p.state, p.colonies_dropped_off])).toEqual([['South gate', 'Not yet dropped off', ''], ['North lane', 'On site', '36']]);
 
     expect((await viewer.get('/api/exports/requests.csv')).status).toBe(403);
     expect((await crew.get('/api/exports/placements.csv')).status).toBe(403);

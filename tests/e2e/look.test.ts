@@ -136,7 +136,7 @@ describe('the look: main pages for each side', () => {
     const { page, context } = await openWatchedPage(browser);
     await signInThroughPage(page, t.baseUrl, 'look-keeper@example.test');
     await visible(page, 'Colonies committed by week');
-    const field = page.getByLabel('Colonies owned');
+    const field = page.getByLabel('Colonies owned', { exact: true });
     await field.fill('150');
     await page.getByRole('button', { name: 'Save' }).click();
     await visible(page, 'Colony total saved');

@@ -1,11 +1,12 @@
 // Parses req.body, req.query and req.params with the shared zod schemas and writes the
-// parsed values back; a failure is a 400 naming every bad field.
+// parsed values back; a failure is a 400 naming every bad field by its label.
 import type { RequestHandler } from 'express';
 import type { ZodType } from 'zod';
 import { z } from 'zod';
 import { createError } from '../errors/create-error.js';
 import type { FieldErrors } from '../../../shared/errors.js';
 import { nulMessage, nulPaths } from '../../../shared/schemas/common.js';
+import { pleaseCheck } from '../../../shared/labels/fields.js';
 
 type Schemas = { body?: ZodType; query?: ZodType; params?: ZodType };
 
@@ -21,12 +22,12 @@ export function fieldErrorsOf(error: z.ZodError, prefix?: string): FieldErrors {
 export function parseOrThrow<T>(schema: ZodType<T>, value: unknown, prefix?: string): T {
   // PostgreSQL text cannot hold a NUL character; refuse it in any field before it reaches a query.
   const withNul = nulPaths(value).map((path) => [prefix, path === 'body' ? '' : path].filter(Boolean).join('.') || prefix || 'body');
-  if (withNul.length) throw createError('validation_failed', `Please check: ${withNul.join(', ')}.`, 400, Object.fromEntries(withNul.map((path) => [path, nulMessage])));
+  if (withNul.length) throw createError('validation_failed', pleaseCheck(withNul), 400, Object.fromEntries(withNul.map((path) => [path, nulMessage])));
   const result = schema.safeParse(value);
   if (!result.success) {
     const fields = fieldErrorsOf(result.error, prefix);
-    const names = Object.keys(fields).join(', ');
-    throw createError('validation_failed', `Please check: ${names}.`, 400, fields);
+    // The message names fields by their labels; `fields` keeps the schema keys for the form to place each message.
+    throw createError('validation_failed', pleaseCheck(Object.keys(fields)), 400, fields);
   }
   return result.data;
 }

@@ -9,6 +9,9 @@ import { apiaryResponses, farmResponses, type AlertAnswer, type AlertDto, type A
 import { loadAlertDtos } from './alert-dtos.js';
 import { queueAlertPublication } from './alert-outbox.js';
 import { alertCounts } from './alerts.queries.js';
+import { pleaseCheck } from '../../../../shared/labels/fields.js';
+import { alertResponseSet } from '../../../../shared/labels/alerts.js';
+import { labelOf } from '../../../../shared/labels/label-set.js';
 
 function orgOf(user: AuthUser): string {
   if (!user.organizationId) throw notFound('That alert');
@@ -65,7 +68,7 @@ export function createAlertsService(ctx: AppContext) {
         await Alert.findByPk(id, { attributes: ['id'], lock: transaction.LOCK.UPDATE, transaction });
         const alert = await load(user, id, transaction);
         if (alert.state === 'resolved') throw wrongState('This alert is resolved: the check no longer finds a conflict.');
-        if (!allowed.includes(answer.response)) throw badRequest('Please check: response.', { response: `must be one of ${allowed.join(', ')}` });
+        if (!allowed.includes(answer.response)) throw badRequest(pleaseCheck(['response']), { response: `must be one of: ${allowed.map((r) => labelOf(alertResponseSet, r)).join('; ')}` });
         const now = ctx.now();
         await markSeen(user, alert, transaction);
         await AlertEvent.create(

@@ -11,6 +11,7 @@ import { sprayDayContext } from './pests.queries.js';
 import type { PestModelDto, PestTimingDto, TrapCountDto, TrapCountInput } from '../../../../shared/schemas/pests.js';
 import type { PestModel } from '../../db/models/pest-model.model.js';
 import type { PestTrapCount } from '../../db/models/pest-trap-count.model.js';
+import { pleaseCheck } from '../../../../shared/labels/fields.js';
 
 const toPestModelDto = (m: PestModel): PestModelDto => ({
   id: m.id, name: m.name, lowerThresholdF: m.lowerThresholdF, upperThresholdF: m.upperThresholdF, method: m.method, cutoff: m.cutoff,
@@ -23,13 +24,13 @@ export function createPestsService(ctx: AppContext) {
 
   async function requireBlock(user: AuthUser, blockId: string, field?: string) {
     const block = await Block.findOne({ attributes: ['id', 'weatherStationId'], where: { id: blockId, farmId: user.organizationId! } });
-    if (!block) throw field ? badRequest(`Please check: ${field}.`, { [field]: 'must be one of your farm\'s blocks' }) : notFound('That block');
+    if (!block) throw field ? badRequest(pleaseCheck([field]), { [field]: 'must be one of your farm\'s blocks' }) : notFound('That block');
     return block;
   }
 
   async function requireModel(id: string): Promise<PestModelDto> {
     const model = await PestModel.findByPk(id);
-    if (!model) throw badRequest('Please check: pestModelId.', { pestModelId: 'is not a known pest model' });
+    if (!model) throw badRequest(pleaseCheck(['pestModelId']), { pestModelId: 'is not a known pest model' });
     return toPestModelDto(model);
   }
 

@@ -18,6 +18,7 @@ import { sprayChanged } from '../alerts/conflict-rechecks.js';
 import { blocksOfSprays, bufferArea } from './sprays.queries.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
 import { sprayStateSet } from '../../../../shared/labels/sprays.js';
+import { pleaseCheck } from '../../../../shared/labels/fields.js';
 
 type Window = SprayPlan['plannedWindow'];
 const windowOf = (from: Date, to: Date): Window => [{ value: from, inclusive: true }, { value: to, inclusive: false }];
@@ -53,7 +54,7 @@ export function createSpraysService(ctx: AppContext) {
   async function requireOwnBlocks(farmId: string, blockIds: string[], transaction?: Transaction): Promise<string[]> {
     const unique = [...new Set(blockIds)];
     const found = await Block.count({ where: { farmId, id: unique }, transaction });
-    if (found !== unique.length) throw badRequest('Please check: blockIds.', { blockIds: 'every block must be one of your farm\'s blocks' });
+    if (found !== unique.length) throw badRequest(pleaseCheck(['blockIds']), { blockIds: 'every block must be one of your farm\'s blocks' });
     return unique;
   }
 
@@ -159,7 +160,7 @@ export function createSpraysService(ctx: AppContext) {
         const plan = await lockOwn(farmId, id, transaction);
         if (plan.state !== 'planned') throw wrongState(`This spray is ${labelOf(sprayStateSet, plan.state).toLowerCase()}; only a planned spray can be recorded as applied.`);
         const appliedAt = new Date(input.appliedAt);
-        if (appliedAt.getTime() > ctx.now().getTime() + 5 * 60_000) throw badRequest('Please check: appliedAt.', { appliedAt: 'cannot be in the future' });
+        if (appliedAt.getTime() > ctx.now().getTime() + 5 * 60_000) throw badRequest(pleaseCheck(['appliedAt']), { appliedAt: 'cannot be in the future' });
         const window = sprayWindow({ startsAt: plan.plannedWindow[0].value, endsAt: plan.plannedWindow[1].value, appliedAt });
         await plan.update({
           state: 'applied', appliedAt,
