@@ -1,7 +1,5 @@
 // Block calls (server module blocks): list, read, create, change, remove; forecast; bloom window revisions.
 import { http } from './http';
-import { onServerEvent } from './socket';
-import type { ServerToClientEvents } from '@shared/events';
 import type { BlockBody, BlockDto, BlockForecastDto, BlockPatch, BloomWindowBody, BloomWindowDto, ForecastQuery } from '@shared/schemas/blocks';
 
 export const blocksApi = {
@@ -14,6 +12,3 @@ export const blocksApi = {
   bloomWindows: (id: string) => http.get<{ revisions: BloomWindowDto[] }>(`/blocks/${id}/bloom-windows`),
   publishBloomWindow: (id: string, body: BloomWindowBody) => http.post<{ bloomWindow: BloomWindowDto }>(`/blocks/${id}/bloom-windows`, body),
 };
-
-// Kept for the block page until it listens through useSocketEvent('bloom:revised'); then this goes.
-export const onBloomRevised = (handler: ServerToClientEvents['bloom:revised']) => onServerEvent('bloom:revised', handler);
