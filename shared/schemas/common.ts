@@ -147,13 +147,19 @@ export const polygonSchema = z.object({
           const problem =
             ring[0][0] !== ring.at(-1)![0] || ring[0][1] !== ring.at(-1)![1] ? 'a ring must end where it starts'
             : distinctPositions(ring) < 3 ? 'a ring needs at least three different corners'
-            : extentKm(ring) > maxBlockExtentKm ? `a block outline is at most ${maxBlockExtentKm} km across`
-            : selfIntersects(ring) ? 'an outline must not cross itself'
             : null;
           if (problem) ctx.addIssue({ code: 'custom', message: problem });
         }),
     )
     .min(1, 'a polygon needs an outer ring')
     .max(50, 'a polygon has at most 50 rings'),
+}).superRefine((polygon, ctx) => {
+  // Size and crossing concern the outline as a whole, so the message names the outline itself.
+  const rings = polygon.coordinates.filter((ring) => ring.length >= 4);
+  const problem =
+    rings.some((ring) => extentKm(ring) > maxBlockExtentKm) ? `a block outline is at most ${maxBlockExtentKm} km across`
+    : rings.some((ring) => selfIntersects(ring)) ? 'is not a valid polygon: an outline must not cross itself'
+    : null;
+  if (problem) ctx.addIssue({ code: 'custom', message: problem });
 });
 export type GeoPolygon = z.infer<typeof polygonSchema>;

@@ -21,9 +21,7 @@ const LIBRARY_TABLES = ['user_sessions', 'socket_io_attachments', 'schema_migrat
 /** App-owned tables that have no model yet. */
 const TABLES_WITHOUT_MODEL_YET: string[] = [];
 /** Models no feature module uses yet. */
-const MODELS_NOT_USED_YET: string[] = [
-  'IdempotencyKey',
-];
+const MODELS_NOT_USED_YET: string[] = [];
 /** Modules with a routes file but no controller yet. */
 const MODULES_WITHOUT_CONTROLLER_YET: string[] = [];
 /** Module files (relative to server/src/modules) that still hold SQL text outside a `.queries.ts`. */

@@ -32,8 +32,10 @@ describe('demo invoices seed', () => {
     expect(agreements.map((a: { id: string }) => a.id)).toEqual([handles.agreementToInvoiceId]);
 
     const paid = (await keeper.get(`/api/invoices/${handles.paidId}`).expect(200)).body.invoice;
-    // 27 x $180.00 + 9 x $90.00 = $4,860.00 + $810.00 = $5,670.00 (2 of 8 sampled below 6 frames -> 9 of 36).
-    expect(paid.totalCents).toBe(567_000);
+    // The group's sample averages 45.5 / 8 = 5.7 frames, under 6, so it falls short (the agreement's
+    // clause); 4 of 8 sampled below 6 frames -> 18 of 36 at half rate:
+    // 18 x $180.00 + 18 x $90.00 = $3,240.00 + $1,620.00 = $4,860.00.
+    expect(paid.totalCents).toBe(486_000);
     const overdue = (await signedInClient(t.app, 'grower2@ridge.test').then((c) => c.get(`/api/invoices/${handles.overdueId}`).expect(200))).body.invoice;
     // 24 x $95.00 = $2,280.00; balance $1,140.00 overdue for a first started month at 1%: $11.40.
     expect(overdue.outstandingCents).toBe(114_000);

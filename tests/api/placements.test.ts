@@ -71,7 +71,7 @@ describe('placements', () => {
     expect(await heard).toMatchObject({ placementId: placement.id, state: 'delivered', step: 'delivered' });
     // The spray conflict check re-runs for the placement's agreement.
     await expect.poll(() => recheckRanSince(t, `agreement:${placement.agreementId}`, stepAt), { timeout: 10_000 }).toBe(true);
-    await expect.poll(() => t.sink.messages.some((msg) => msg.to.includes(m.people.grower.email) && /North lane .*delivered/.test(msg.subject)), { timeout: 10_000 }).toBe(true);
+    await expect.poll(() => t.sink.messages.some((msg) => msg.to.includes(m.people.grower.email) && /North lane .*dropped off/.test(msg.subject)), { timeout: 10_000 }).toBe(true);
     const again = await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 30 });
     expect(again.status).toBe(409);
   });
@@ -148,7 +148,7 @@ describe('placements', () => {
     await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 20, deliveredAt }).expect(200);
     const tooMany = await crew.post(`/api/placements/${placement.id}/pickup`, { coloniesPickedUp: 21 });
     expect(tooMany.status).toBe(400);
-    expect(tooMany.body.error.fields.coloniesPickedUp).toMatch(/20 delivered/);
+    expect(tooMany.body.error.fields.coloniesPickedUp).toMatch(/20 dropped off/);
     const early = await crew.post(`/api/placements/${placement.id}/pickup`, { coloniesPickedUp: 20, pickedUpAt: new Date(Date.parse(deliveredAt) - 1000).toISOString() });
     expect(early.status).toBe(400);
     const pickedUpAt = new Date(Date.now() - 60_000).toISOString();

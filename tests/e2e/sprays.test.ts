@@ -70,7 +70,7 @@ describe('spray plans and live alerts in the browser', () => {
     await expect.poll(() => page.locator('#spray-epa-error').textContent(), slow).toMatch(/EPA registration number/);
     await page.getByLabel('EPA registration number').fill('1234-56');
     const conflicts = page.locator('[data-spray-conflicts]');
-    await expect.poll(() => conflicts.textContent(), slow).toMatch(/Barred during bloom/);
+    await expect.poll(() => conflicts.textContent(), slow).toMatch(/Acutely toxic, in bloom, colonies on the block/);
     expect(await conflicts.textContent()).toMatch(/Goldthread Apiaries/);
     expect(await conflicts.textContent()).toMatch(/treated as\s+highly toxic/);
     expect(await conflicts.textContent()).toMatch(/label is the law/);
@@ -81,7 +81,7 @@ describe('spray plans and live alerts in the browser', () => {
 
     // The beekeeper's page was not reloaded: the bell and the list update live, with a toast.
     await expect.poll(() => keeper.page.locator('[data-alert-count]').textContent(), slow).toBe('1');
-    await expect.poll(() => keeper.page.locator('.p-toast-message').first().textContent(), slow).toMatch(/Spray alert: Barred during bloom/);
+    await expect.poll(() => keeper.page.locator('.p-toast-message').first().textContent(), slow).toMatch(/Spray alert: Acutely toxic, in bloom, colonies on the block/);
     const card = keeper.page.locator('[data-alert-card]').first();
     await expect.poll(() => card.textContent(), slow).toMatch(/Codling Shield 50WP on Cedar Row/);
     expect(await card.textContent()).toMatch(/licensed applicator/);

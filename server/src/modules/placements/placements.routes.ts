@@ -10,7 +10,7 @@ import { placementsPolicy } from './placements.policy.js';
 import { createPlacementsService } from './placements.service.js';
 import { createPlacementsController } from './placements.controller.js';
 import { photoUpload } from './placement-photos.js';
-import { idempotent } from '../../middleware/idempotency.js';
+import { idempotent } from './field-records-once.js';
 
 const listQuery = z.object({ agreementId: idSchema.optional() });
 

@@ -152,7 +152,7 @@ export function createPlacementsService(ctx: AppContext) {
       const receivedAt = ctx.now();
       await ctx.sequelize.transaction(async (t) => {
         const p = await lockForStep(user, id, t);
-        if (p.state !== 'scheduled') throw wrongState(`These colonies are already ${p.state === 'delivered' ? 'delivered' : 'picked up'}.`);
+        if (p.state !== 'scheduled') throw wrongState(`These colonies are already ${p.state === 'delivered' ? 'dropped off' : 'picked up'}.`);
         const site = await ctx.models.DropSite.findByPk(p.dropSiteId, { attributes: ['location'], transaction: t, rejectOnEmpty: true });
         await p.update({
           state: 'delivered', coloniesDelivered: body.coloniesDelivered, deliveredAt: at, deliveredBy: user.id,
@@ -170,7 +170,7 @@ export function createPlacementsService(ctx: AppContext) {
       const receivedAt = ctx.now();
       const ended = await ctx.sequelize.transaction(async (t) => {
         const p = await lockForStep(user, id, t);
-        if (p.state !== 'delivered') throw wrongState(p.state === 'scheduled' ? 'These colonies have not been delivered yet.' : 'These colonies are already picked up.');
+        if (p.state !== 'delivered') throw wrongState(p.state === 'scheduled' ? 'These colonies have not been dropped off yet.' : 'These colonies are already picked up.');
         if (body.coloniesPickedUp > p.coloniesDelivered!) throw badRequest(pleaseCheck(['coloniesPickedUp']), { coloniesPickedUp: `cannot be more than the ${p.coloniesDelivered} dropped off` });
         if (at <= p.deliveredAt!) throw badRequest(pleaseCheck(['pickedUpAt']), { pickedUpAt: 'must be after the drop-off' });
         await p.update({
@@ -196,7 +196,7 @@ export function createPlacementsService(ctx: AppContext) {
       let summaryText = '';
       await ctx.sequelize.transaction(async (t) => {
         const p = await lockForStep(user, id, t);
-        if (p.state !== 'delivered') throw wrongState(p.state === 'scheduled' ? 'Colonies are checked once they are delivered.' : 'These colonies are already picked up.');
+        if (p.state !== 'delivered') throw wrongState(p.state === 'scheduled' ? 'Colonies are checked once they are dropped off.' : 'These colonies are already picked up.');
         const group = body.coloniesInGroup ?? p.coloniesDelivered!;
         const required = minimumSampleSize(group);
         const fields: Record<string, string> = {};

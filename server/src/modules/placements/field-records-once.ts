@@ -7,10 +7,10 @@
 import { createHash } from 'node:crypto';
 import type { RequestHandler, Response } from 'express';
 import { UniqueConstraintError } from 'sequelize';
-import type { AppContext } from '../context.js';
-import { currentUser } from './authenticate.js';
-import { createError } from '../errors/create-error.js';
-import type { IdempotencyKey } from '../db/models/idempotency-key.model.js';
+import type { AppContext } from '../../context.js';
+import { currentUser } from '../../middleware/authenticate.js';
+import { createError } from '../../errors/create-error.js';
+import type { IdempotencyKey } from '../../db/models/idempotency-key.model.js';
 
 export const idempotencyHeader = 'Idempotency-Key';
 const keyPattern = /^[A-Za-z0-9_.:-]{8,200}$/;
