@@ -69,7 +69,7 @@ describe('field pages without signal', () => {
   const rows = <T extends object>(sql: string) => t.context.sequelize.query<T>(sql, { replacements: { id: placementId }, type: QueryTypes.SELECT });
 
   it('keeps a drop-off, photos and a strength check through an offline reload and sends each once', async () => {
-    const crew = await openWatchedPage(browser, { width: 412, height: 915, permissions: ['geolocation'] });
+    const crew = await openWatchedPage(browser, { width: 412, height: 915, permissions: ['geolocation'], serviceWorkers: 'allow' });
     pages.push(crew);
     const { page, context } = crew;
     await context.setGeolocation({ latitude: 44.9004, longitude: -119.9003, accuracy: 12 });

@@ -20,8 +20,16 @@ export interface WatchedPage {
   externalRequests: string[];
 }
 
-export async function openWatchedPage(browser: Browser, options: { width?: number; height?: number; permissions?: string[] } = {}): Promise<WatchedPage> {
-  const context = await browser.newContext({ viewport: { width: options.width ?? 1280, height: options.height ?? 860 }, permissions: options.permissions });
+/**
+ * A page in a fresh context that records console errors and aborts any request leaving the
+ * machine. The service worker is blocked unless asked for (`serviceWorkers: 'allow'`, the
+ * offline field test): requests a worker answers bypass the context's routing, so the
+ * outside-request watch and waits on API answers would not see them.
+ */
+export async function openWatchedPage(browser: Browser, options: { width?: number; height?: number; permissions?: string[]; serviceWorkers?: 'allow' | 'block' } = {}): Promise<WatchedPage> {
+  const context = await browser.newContext({
+    viewport: { width: options.width ?? 1280, height: options.height ?? 860 }, permissions: options.permissions, serviceWorkers: options.serviceWorkers ?? 'block',
+  });
   const page = await context.newPage();
   const consoleErrors: string[] = [];
   const externalRequests: string[] = [];
