@@ -39,7 +39,9 @@ try {
       cwd: repoRoot, stdio: 'inherit', env,
     }).status ?? 1;
   const first = vitest(['--project', 'domain', '--project', 'api']);
-  const second = vitest(['--project', 'e2e', '--maxWorkers', '2']);
+  // Arguments passed through win: add the browser pass's own worker count only when none was given.
+  const workersGiven = process.argv.slice(2).some((a) => a.startsWith('--maxWorkers'));
+  const second = vitest(['--project', 'e2e', ...(workersGiven ? [] : ['--maxWorkers', '2'])]);
   code = first || second;
 } finally {
   if (cluster.startedHere) stopCluster(cluster);
