@@ -18,6 +18,7 @@ declare module 'vue' {
     AppChart: typeof import('./src/components/common/AppChart.vue')['default']
     AsyncPage: typeof import('./src/components/common/AsyncPage.vue')['default']
     AuthCard: typeof import('./src/components/auth/AuthCard.vue')['default']
+    Badge: typeof import('primevue/badge')['default']
     BlockBloomHistory: typeof import('./src/components/blocks/BlockBloomHistory.vue')['default']
     BlockBloomWindowForm: typeof import('./src/components/blocks/BlockBloomWindowForm.vue')['default']
     BlockForecastChart: typeof import('./src/components/blocks/BlockForecastChart.vue')['default']
