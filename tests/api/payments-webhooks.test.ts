@@ -15,8 +15,7 @@ import { DateTime } from 'luxon';
 import { startTestApp, eventually, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
 import type { Organization } from '../../server/src/db/models/organization.model.js';
-import { buildOrganization, buildUser } from '../support/builders/accounts.js';
-import { buildBillableSeason, buildInvoice } from '../support/builders/invoices.js';
+import { buildBillableSeason, buildBillingParties, buildInvoice } from '../support/builders/invoices.js';
 
 describe('payment webhooks and online checkout', () => {
   let t: TestApp;
@@ -29,10 +28,7 @@ describe('payment webhooks and online checkout', () => {
 
   beforeAll(async () => {
     t = await startTestApp({ now: () => clock });
-    farm = await buildOrganization({ kind: 'farm', name: 'Hollowfield Orchard' });
-    apiary = await buildOrganization({ kind: 'apiary', name: 'Quillwort Bees' });
-    await buildUser({ organization: farm, role: 'owner', email: 'owner@hollowfield.test' });
-    await buildUser({ organization: apiary, role: 'owner', email: 'owner@quillwort.test' });
+    ({ farm, apiary } = await buildBillingParties({ farm: 'Hollowfield Orchard', apiary: 'Quillwort Bees', farmOwnerEmail: 'owner@hollowfield.test', apiaryOwnerEmail: 'owner@quillwort.test' }));
     keeper = await signedInClient(t.app, 'owner@quillwort.test');
     grower = await signedInClient(t.app, 'owner@hollowfield.test');
   });

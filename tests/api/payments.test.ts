@@ -8,7 +8,7 @@ import { startTestApp, eventually, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
 import type { Organization } from '../../server/src/db/models/organization.model.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
-import { buildBillableSeason, buildInvoice } from '../support/builders/invoices.js';
+import { buildBillableSeason, buildBillingParties, buildInvoice } from '../support/builders/invoices.js';
 
 describe('payments API', () => {
   let t: TestApp;
@@ -22,10 +22,7 @@ describe('payments API', () => {
 
   beforeAll(async () => {
     t = await startTestApp({ now: () => clock });
-    farm = await buildOrganization({ kind: 'farm', name: 'Amberlane Orchard' });
-    apiary = await buildOrganization({ kind: 'apiary', name: 'Sallowmead Bees' });
-    await buildUser({ organization: farm, role: 'owner', email: 'owner@amberlane.test' });
-    await buildUser({ organization: apiary, role: 'owner', email: 'owner@sallowmead.test' });
+    ({ farm, apiary } = await buildBillingParties({ farm: 'Amberlane Orchard', apiary: 'Sallowmead Bees', farmOwnerEmail: 'owner@amberlane.test', apiaryOwnerEmail: 'owner@sallowmead.test' }));
     keeper = await signedInClient(t.app, 'owner@sallowmead.test');
     grower = await signedInClient(t.app, 'owner@amberlane.test');
   });

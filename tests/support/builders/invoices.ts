@@ -3,6 +3,7 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
 import { loadAgreement, insertDraft, issueDraft } from '../../../server/src/modules/invoices/invoice-drafting.js';
 import { buildSignedSeason, buildStrengthCheck, type RequestTerms } from './season.js';
+import { buildOrganization, buildUser } from './accounts.js';
 import { builderDatabase, builderModels, builderSequelize } from './builder-database.js';
 
 type Org = { id: string };
@@ -57,4 +58,13 @@ export async function buildManualPayment(attrs: { invoice: { id: string }; amoun
     invoiceId: attrs.invoice.id, method: attrs.method ?? 'cheque', state: 'succeeded', amountCents: attrs.amountCents, currency: 'USD',
     providerPaymentId: null, failureMessage: null, reference: attrs.reference ?? null, receivedAt: attrs.receivedAt, recordedBy: null,
   });
+}
+
+/** A farm and an apiary business with one owner each: the two sides of a bill. */
+export async function buildBillingParties(names: { farm: string; apiary: string; farmOwnerEmail: string; apiaryOwnerEmail: string }) {
+  const farm = await buildOrganization({ kind: 'farm', name: names.farm });
+  const apiary = await buildOrganization({ kind: 'apiary', name: names.apiary });
+  await buildUser({ organization: farm, role: 'owner', email: names.farmOwnerEmail });
+  await buildUser({ organization: apiary, role: 'owner', email: names.apiaryOwnerEmail });
+  return { farm, apiary };
 }
