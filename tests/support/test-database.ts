@@ -39,6 +39,27 @@ export async function createTestDatabase(): Promise<{ url: string; drop: () => P
   url.pathname = `/${name}`;
   return {
     url: url.toString(),
-    drop: () => onMaintenanceDb((c) => c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`)).then(() => undefined),
+    drop: () => dropDatabase(name),
   };
+}
+
+// WITH (FORCE) refuses when an autovacuum worker happens to be in the database (its process
+// belongs to no role the app role may signal); a plain DROP stops autovacuum workers itself,
+// so fall back to it and retry while the worker winds down.
+async function dropDatabase(name: string): Promise<void> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      await onMaintenanceDb((c) => c.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`));
+      return;
+    } catch (err) {
+      if (!/pg_signal_backend|being accessed by other users/.test(String(err))) throw err;
+      try {
+        await onMaintenanceDb((c) => c.query(`DROP DATABASE IF EXISTS ${name}`));
+        return;
+      } catch (plainErr) {
+        if (attempt > 20 || !/being accessed by other users/.test(String(plainErr))) throw plainErr;
+        await new Promise((r) => setTimeout(r, 250));
+      }
+    }
+  }
 }
