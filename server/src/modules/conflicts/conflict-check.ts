@@ -58,7 +58,11 @@ export async function runConflictCheck(sequelize: Sequelize, input: CheckInput, 
   const noticeGivenHours = (input.from.getTime() - input.noticedAt.getTime()) / HOUR_MS;
 
   const byApiary = new Map<string, ExposureRow[]>();
-  for (const row of exposures) byApiary.set(row.apiary_id, [...(byApiary.get(row.apiary_id) ?? []), row]);
+  for (const row of exposures) {
+    const rows = byApiary.get(row.apiary_id) ?? [];
+    rows.push(row);
+    byApiary.set(row.apiary_id, rows);
+  }
 
   const conflicts: SprayConflict[] = [];
   for (const rows of byApiary.values()) {

@@ -17,7 +17,7 @@ export interface SearchScope {
   bufferM: number;
 }
 
-/** Colonies at one drop site under one agreement, placed or expected. */
+/** Colonies at one drop site under one agreement, placed or expected: one row per drop site and agreement. */
 export interface ExposureRow {
   drop_site_id: string;
   drop_site_name: string;
@@ -59,14 +59,24 @@ const exposureSql = `
       LATERAL (SELECT ST_Distance(d.location::geography, s.geom::geography, false) AS distance_m) x
     ORDER BY d.id, x.distance_m
   ),
-  found AS (
-    SELECT n.id AS drop_site_id, a.id AS agreement_id, a.state AS agreement_state, a.apiary_id, a.notice_hours,
-      coalesce(p.colonies_delivered, p.colonies_planned) AS colonies, p.state <> 'scheduled' AS placed,
-      p.on_site && tstzrange($from, $to, '[)') AS during_spray
+  placed AS (
+    -- Summed per drop site, agreement and delivered-or-not before anything else is joined, so
+    -- what follows (and what the check receives) grows with the drop sites near the spray, not
+    -- with the placements on them.
+    SELECT p.drop_site_id, p.agreement_id, p.state <> 'scheduled' AS placed,
+      sum(coalesce(p.colonies_delivered, p.colonies_planned)) AS colonies,
+      bool_or(p.on_site && tstzrange($from, $to, '[)')) AS during_spray
     FROM near_sites n
     JOIN placements p ON p.drop_site_id = n.id AND p.on_site && tstzrange($from, $exposureTo, '[)')
-    JOIN agreements a ON a.id = p.agreement_id
-    WHERE p.state <> 'scheduled' OR a.state IN ('awaiting-signatures', 'in-force')
+    GROUP BY p.drop_site_id, p.agreement_id, p.state <> 'scheduled'
+  ),
+  found AS (
+    SELECT x.drop_site_id, a.id AS agreement_id, a.state AS agreement_state, a.apiary_id, a.notice_hours,
+      sum(x.colonies) AS colonies, bool_or(x.placed) AS placed, bool_or(x.during_spray) AS during_spray
+    FROM placed x
+    JOIN agreements a ON a.id = x.agreement_id
+    WHERE x.placed OR a.state IN ('awaiting-signatures', 'in-force')
+    GROUP BY x.drop_site_id, a.id
     UNION ALL
     -- Agreed but not yet scheduled: the agreement's window at its request's drop sites.
     SELECT n.id, a.id, a.state, a.apiary_id, a.notice_hours, least(a.colonies, n.colonies_planned), false,
@@ -83,7 +93,7 @@ const exposureSql = `
   JOIN near_sites n ON n.id = f.drop_site_id
   JOIN blocks b ON b.id = n.block_id
   JOIN organizations o ON o.id = f.apiary_id
-  ORDER BY o.name, n.distance_m`;
+  ORDER BY o.name, n.distance_m, f.drop_site_id, f.agreement_id`;
 
 const bloomSql = `
   SELECT EXISTS (
