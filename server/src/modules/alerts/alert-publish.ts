@@ -9,12 +9,43 @@ import { loadAlertDtos, organizationsOf } from './alert-dtos.js';
 import type { AlertPublishJob } from './alert-outbox.js';
 
 export async function publishAlert(ctx: AppContext, job: AlertPublishJob): Promise<void> {
-  for (const orgId of await organizationsOf(ctx, job.alertId)) {
-    const [dto] = await loadAlertDtos(ctx, orgId, { ids: [job.alertId] });
+  const orgIds = await organizationsOf(ctx, job.alertId);
+  const views = await Promise.all(orgIds.map((orgId) => loadAlertDtos(ctx, orgId, { ids: [job.alertId] })));
+  orgIds.forEach((orgId, i) => {
+    const [dto] = views[i];
     if (dto) publishToOrganizations(ctx.io, [orgId], job.event, dto);
+  });
+}
+
+// Publications this process started right after their commit: whether each was sent. The
+// job for one waits for that answer and sends only when the first attempt failed. A job
+// fetched by another process finds nothing here and sends again (a duplicate the clients drop).
+const sentOnCommit = new Map<string, Promise<boolean>>();
+const forgetAfterMs = 10 * 60_000;
+
+export function publishOnCommit(ctx: AppContext, job: AlertPublishJob): void {
+  if (!job.publicationId) return;
+  const id = job.publicationId;
+  const sent = publishAlert(ctx, job).then(
+    () => true,
+    (err) => {
+      ctx.logger.warn({ err, alertId: job.alertId }, 'alert not published on commit; its job will');
+      return false;
+    },
+  );
+  sentOnCommit.set(id, sent);
+  setTimeout(() => sentOnCommit.delete(id), forgetAfterMs).unref();
+}
+
+async function publishFromJob(ctx: AppContext, job: AlertPublishJob): Promise<void> {
+  const first = job.publicationId ? sentOnCommit.get(job.publicationId) : undefined;
+  if (first) {
+    sentOnCommit.delete(job.publicationId!);
+    if (await first) return;
   }
+  await publishAlert(ctx, job);
 }
 
 export async function startAlertPublishWorker(ctx: AppContext): Promise<void> {
-  await ctx.jobs.addWorker<AlertPublishJob>(queueNames.alertPublish, (job) => publishAlert(ctx, job));
+  await ctx.jobs.addWorker<AlertPublishJob>(queueNames.alertPublish, (job) => publishFromJob(ctx, job));
 }
