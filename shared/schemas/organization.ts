@@ -2,9 +2,12 @@
 import { z } from 'zod';
 import { emailSchema } from './common.js';
 import { emailedTokenSchema, passwordSchema } from './auth.js';
+import { memberRoleSet } from '../labels/organizations.js';
 
 /** Every role a member can hold; the server checks it fits the organization's kind. */
-export const memberRoleSchema = z.enum(['owner', 'manager', 'applicator', 'crew', 'viewer'], { message: 'must be one of owner, manager, applicator, crew, viewer' });
+const memberRoleValues = ['owner', 'manager', 'applicator', 'crew', 'viewer'] as const;
+// The message names the roles as people read them, not their stored codes.
+export const memberRoleSchema = z.enum(memberRoleValues, { message: `must be one of ${memberRoleValues.map((r) => memberRoleSet.labels[r]).join(', ')}` });
 export type MemberRoleValue = z.infer<typeof memberRoleSchema>;
 
 export const inviteBody = z.object({ email: emailSchema, role: memberRoleSchema });

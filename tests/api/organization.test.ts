@@ -62,10 +62,11 @@ describe('/api/organization', () => {
       const { client } = await farmWithOwner();
       const res = await client.post('/api/organization/invitations', { email: 'crew-on-a-farm@example.test', role: 'crew' });
       expect(res.status).toBe(400);
-      expect(res.body.error.fields.role).toBe('must be one of owner, manager, applicator, viewer');
+      expect(res.body.error.fields.role).toBe('must be one of Owner, Manager, Applicator, Viewer');
       const bad = await client.post('/api/organization/invitations', { email: 'not-an-email', role: 'boss' });
       expect(bad.status).toBe(400);
       expect(Object.keys(bad.body.error.fields).sort()).toEqual(['email', 'role']);
+      expect(bad.body.error.fields.role).toBe('must be one of Owner, Manager, Applicator, Field crew, Viewer');
     });
 
     it('answers 409 when the e-mail already belongs to a member or another organization', async () => {

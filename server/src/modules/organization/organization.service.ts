@@ -14,6 +14,7 @@ import { emailedLink, newEmailedToken } from '../auth/emailed-tokens.js';
 import type { AuthUser } from '../auth/auth-user.js';
 import { rolesForKind } from '../../../../shared/roles.js';
 import { memberRoleSet } from '../../../../shared/labels/organizations.js';
+import { labelOf } from '../../../../shared/labels/label-set.js';
 import type { InvitationDto, InviteBody, MemberDto, MemberRoleValue, RoleChangeBody } from '../../../../shared/schemas/organization.js';
 
 export const invitationLifetimeMs = 7 * 24 * 3_600_000;
@@ -44,7 +45,8 @@ function organizationOf(user: AuthUser): { id: string; kind: 'farm' | 'apiary'; 
 function assertRoleFitsKind(role: MemberRoleValue, kind: 'farm' | 'apiary') {
   const allowed = rolesForKind(kind);
   if (!allowed.includes(role)) {
-    throw badRequest(`A ${kind === 'farm' ? 'farm' : 'apiary business'} has no role "${role}".`, { role: `must be one of ${allowed.join(', ')}` });
+    const roleName = (code: string) => labelOf(memberRoleSet, code);
+    throw badRequest(`A ${kind === 'farm' ? 'farm' : 'apiary business'} has no role "${roleName(role)}".`, { role: `must be one of ${allowed.map(roleName).join(', ')}` });
   }
 }
 
