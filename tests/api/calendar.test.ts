@@ -29,7 +29,7 @@ describe('calendar feed and exports', () => {
     await grower.post(`/api/agreements/${agreementId}/confirm`).expect(200);
     await keeper.post(`/api/agreements/${agreementId}/confirm`).expect(200);
     const placement = (await crew.get(`/api/placements?agreementId=${agreementId}`)).body.placements[0];
-    await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 36, deliveredAt: '2026-11-30T15:30:00.000Z' }).expect(200);
+    await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 36, deliveredAt: '2026-11-30T15:30:00.000Z' }).expect(201);
   });
   afterAll(async () => { await t?.stop(); });
 

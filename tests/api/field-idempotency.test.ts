@@ -38,7 +38,7 @@ describe('Idempotency-Key on the field steps', () => {
 
   it('keeps one strength check when the same record is sent five times at once with one key', async () => {
     const id = await scheduledPlacementId(20);
-    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 20 }).set('Idempotency-Key', randomUUID()).expect(200);
+    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 20 }).set('Idempotency-Key', randomUUID()).expect(201);
     const key = randomUUID();
     const check = { framesOfBees: [7, 8], coloniesInGroup: 20, checkedAt: new Date(Date.now() - 3_600_000).toISOString() };
     const answers = await Promise.all(Array.from({ length: 5 }, () => crew.post(`/api/placements/${id}/strength-checks`, check).set('Idempotency-Key', key)));
@@ -60,7 +60,7 @@ describe('Idempotency-Key on the field steps', () => {
     const delivery = { coloniesDelivered: 20, deliveredAt: recordedAt, location: { type: 'Point', coordinates: [m.lon + 0.0003, m.lat] }, accuracyM: 12 };
     const key = randomUUID();
     const copies = await Promise.all(Array.from({ length: 5 }, () => crew.post(`/api/placements/${id}/delivery`, delivery).set('Idempotency-Key', key)));
-    expect(copies.map((c) => c.status)).toEqual([200, 200, 200, 200, 200]);
+    expect(copies.map((c) => c.status)).toEqual([201, 201, 201, 201, 201]);
     expect(await count("SELECT count(*) AS n FROM hive_request_events WHERE action = 'placement-delivered' AND detail->>'placementId' = :id", id)).toBe(1);
 
     // Two phones record the same delivery under their own keys: one stands, the other learns what is recorded.
@@ -69,8 +69,8 @@ describe('Idempotency-Key on the field steps', () => {
       crew.post(`/api/placements/${other}/delivery`, { coloniesDelivered: 20 }).set('Idempotency-Key', randomUUID()),
       crew.post(`/api/placements/${other}/delivery`, { coloniesDelivered: 18 }).set('Idempotency-Key', randomUUID()),
     ]);
-    expect([a.status, b.status].sort()).toEqual([200, 409]);
-    const [won, lost] = a.status === 200 ? [a, b] : [b, a];
+    expect([a.status, b.status].sort()).toEqual([201, 409]);
+    const [won, lost] = a.status === 201 ? [a, b] : [b, a];
     expect(lost.body.error.code).toBe('wrong_state');
     expect(lost.body.error.recorded.placement).toMatchObject({ id: other, state: 'delivered', coloniesDelivered: won.body.placement.coloniesDelivered });
     expect(await count("SELECT count(*) AS n FROM hive_request_events WHERE action = 'placement-delivered' AND detail->>'placementId' = :id", other)).toBe(1);
@@ -79,7 +79,7 @@ describe('Idempotency-Key on the field steps', () => {
   it('keeps the phone recorded time beside the time received, and uses the recorded time for the step', async () => {
     const id = await scheduledPlacementId(10);
     const recordedAt = new Date(Date.now() - 90 * 60_000).toISOString();
-    const res = await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 10, deliveredAt: recordedAt, accuracyM: 8 }).set('Idempotency-Key', randomUUID()).expect(200);
+    const res = await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 10, deliveredAt: recordedAt, accuracyM: 8 }).set('Idempotency-Key', randomUUID()).expect(201);
     const p = res.body.placement;
     expect(p.deliveredAt).toBe(recordedAt);
     expect(p.deliveredRecordedAt).toBe(recordedAt);
@@ -91,7 +91,7 @@ describe('Idempotency-Key on the field steps', () => {
   it('refuses a key reused for a different record (422) and a malformed key (400 naming the header)', async () => {
     const id = await scheduledPlacementId(10);
     const key = randomUUID();
-    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 10 }).set('Idempotency-Key', key).expect(200);
+    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 10 }).set('Idempotency-Key', key).expect(201);
     const reused = await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 9 }).set('Idempotency-Key', key);
     expect(reused.status).toBe(422);
     expect(reused.body.error.fields).toHaveProperty('Idempotency-Key');

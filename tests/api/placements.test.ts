@@ -60,7 +60,7 @@ describe('placements', () => {
     const deliveredAt = new Date(Date.now() - 60_000).toISOString();
     const stepAt = new Date();
     const res = await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 30, deliveredAt, location: { type: 'Point', coordinates: [m.lon + 0.0004, m.lat] } });
-    expect(res.status).toBe(200);
+    expect(res.status).toBe(201);
     const p = res.body.placement;
     expect(p.state).toBe('delivered');
     expect(p.coloniesDelivered).toBe(30);
@@ -96,7 +96,7 @@ describe('placements', () => {
   it('records a strength check of at least 10% of the colonies and says whether the group meets the agreement', async () => {
     const { placement } = await scheduledPlacement(30);
     expect((await crew.post(`/api/placements/${placement.id}/strength-checks`, { framesOfBees: [8, 7, 6] })).status).toBe(409); // not delivered yet
-    await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 30 }).expect(200);
+    await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 30 }).expect(201);
     // 30 colonies: open at least 3 (10%, PDA program / Rutgers).
     const small = await crew.post(`/api/placements/${placement.id}/strength-checks`, { framesOfBees: [8, 7] });
     expect(small.status).toBe(400);
@@ -145,7 +145,7 @@ describe('placements', () => {
     const { placement, agreementId } = await scheduledPlacement(20);
     expect((await crew.post(`/api/placements/${placement.id}/pickup`, { coloniesPickedUp: 20 })).status).toBe(409);
     const deliveredAt = new Date(Date.now() - 3 * 86_400_000).toISOString();
-    await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 20, deliveredAt }).expect(200);
+    await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 20, deliveredAt }).expect(201);
     const tooMany = await crew.post(`/api/placements/${placement.id}/pickup`, { coloniesPickedUp: 21 });
     expect(tooMany.status).toBe(400);
     expect(tooMany.body.error.fields.coloniesPickedUp).toMatch(/20 dropped off/);
@@ -154,7 +154,7 @@ describe('placements', () => {
     const pickedUpAt = new Date(Date.now() - 60_000).toISOString();
     const pickupAt = new Date();
     const res = await crew.post(`/api/placements/${placement.id}/pickup`, { coloniesPickedUp: 19, pickedUpAt });
-    expect(res.status).toBe(200);
+    expect(res.status).toBe(201);
     expect(res.body.placement.state).toBe('picked-up');
     expect(res.body.placement.onSite).toEqual({ from: deliveredAt, to: pickedUpAt });
     expect((await grower.get(`/api/agreements/${agreementId}`)).body.agreement.state).toBe('completed');

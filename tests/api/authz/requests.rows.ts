@@ -150,7 +150,7 @@ export const rows: AuthzRow<Fixtures>[] = [
     path: ({ fresh }) => `/api/placements/${fresh.id}/delivery`,
     body: { coloniesDelivered: 10 },
     policy: { table: 'placements', action: 'fieldStep' },
-    expect: statuses(403, { ...each(['apiary:owner', 'apiary:manager', 'apiary:crew'], 200), 'other-apiary': 404 }),
+    expect: statuses(403, { ...each(['apiary:owner', 'apiary:manager', 'apiary:crew'], 201), 'other-apiary': 404 }),
   },
   {
     title: 'record a strength check (beekeeper side or the grower’s inspector)',

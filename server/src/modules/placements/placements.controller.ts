@@ -19,10 +19,10 @@ export function createPlacementsController(service: PlacementsService) {
       res.json({ placement: await service.get(currentUser(req), id(req)) });
     },
     async deliver(req: Request, res: Response) {
-      res.json({ placement: await withRecordedOnConflict(() => service.deliver(currentUser(req), id(req), req.body), recorded(req)) });
+      res.status(201).json({ placement: await withRecordedOnConflict(() => service.deliver(currentUser(req), id(req), req.body), recorded(req)) });
     },
     async pickup(req: Request, res: Response) {
-      res.json({ placement: await withRecordedOnConflict(() => service.pickup(currentUser(req), id(req), req.body), recorded(req)) });
+      res.status(201).json({ placement: await withRecordedOnConflict(() => service.pickup(currentUser(req), id(req), req.body), recorded(req)) });
     },
     async strengthCheck(req: Request, res: Response) {
       res.status(201).json({ placement: await withRecordedOnConflict(() => service.recordStrengthCheck(currentUser(req), id(req), req.body), recorded(req)) });
