@@ -1,0 +1,66 @@
+// The client's layers as DEVELOPERS.md describes them: only client/src/api/ calls the
+// server; components reach it through stores, composables or their page, and leave save
+// state and the server's error messages to the composables (useSubmit, useAsync, useAction).
+import { describe, it, expect } from 'vitest';
+import { readFileSync, readdirSync } from 'node:fs';
+import { join } from 'node:path';
+
+function vueFiles(dir: string): string[] {
+  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const path = join(dir, entry.name);
+    if (entry.isDirectory()) return vueFiles(path);
+    return entry.name.endsWith('.vue') ? [path] : [];
+  });
+}
+
+/** Lines importing a runtime value (not `import type`) from the api layer. */
+function apiValueImports(source: string): string[] {
+  return source.split('\n').filter((line) => /^import (?!type\b).*from '@\/api\//.test(line));
+}
+
+// Files not moved onto the composables yet. The list only shrinks: a file moved must leave
+// it (the second check fails otherwise), and any other file that strays fails the first.
+const notYetMoved = new Set([
+  'client/src/components/alerts/AlertCard.vue',
+  'client/src/components/agreements/AgreementCalendarLink.vue',
+  'client/src/components/blocks/BlockForm.vue',
+  'client/src/components/common/UserPreferencesDialog.vue',
+  'client/src/components/dashboard/DashboardColoniesOwnedForm.vue',
+  'client/src/components/invoices/InvoiceBillableList.vue',
+  'client/src/components/invoices/InvoiceCreditNoteForm.vue',
+  'client/src/components/invoices/InvoiceDraftForm.vue',
+  'client/src/components/invoices/InvoiceManualPaymentForm.vue',
+  'client/src/components/map/MapView.vue',
+  'client/src/components/organization/OrganizationInviteForm.vue',
+  'client/src/components/sprays/SprayForm.vue',
+  'client/src/components/sprays/SprayPestTiming.vue',
+  'client/src/components/weather/WeatherUploadPanel.vue',
+  'client/src/pages/blocks/StageThresholdsPage.vue',
+  'client/src/pages/requests/RequestFormPage.vue',
+]);
+
+function offendingFiles(): Map<string, string[]> {
+  const found = new Map<string, string[]>();
+  const add = (file: string, what: string) => found.set(file, [...(found.get(file) ?? []), what]);
+  for (const file of vueFiles('client/src/components')) {
+    for (const line of apiValueImports(readFileSync(file, 'utf8'))) add(file, line);
+  }
+  for (const file of [...vueFiles('client/src/components'), ...vueFiles('client/src/pages')]) {
+    const source = readFileSync(file, 'utf8');
+    if (/const (saving|busy|submitting) = ref\b/.test(source)) add(file, 'own saving flag');
+    if (/\bfieldErrorsOf\(/.test(source)) add(file, 'fieldErrorsOf called directly');
+  }
+  return found;
+}
+
+describe('client layers', () => {
+  it('components import nothing but types from the api layer; no page or component keeps its own saving flag or reads field errors by hand', () => {
+    const strays = [...offendingFiles()].filter(([file]) => !notYetMoved.has(file)).map(([file, what]) => `${file}: ${what.join('; ')}`);
+    expect(strays).toEqual([]);
+  });
+
+  it('lists as not yet moved only files that still are', () => {
+    const offending = offendingFiles();
+    expect([...notYetMoved].filter((file) => !offending.has(file))).toEqual([]);
+  });
+});
