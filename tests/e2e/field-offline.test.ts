@@ -9,9 +9,7 @@ import { QueryTypes } from 'sequelize';
 import type { Browser } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
-import { seedAccounts } from '../../seed/parts/accounts.seed.js';
-import type { SeedWorld } from '../../seed/seed-world.js';
-import { buildSignedSeason } from '../support/builders/season.js';
+import { buildScheduledFieldPlacement } from '../support/field-placement.js';
 
 const poll = <T>(check: () => T | Promise<T>) => expect.poll(check, { timeout: 20_000, interval: 150 });
 
@@ -50,14 +48,7 @@ describe('field pages without signal', () => {
 
   beforeAll(async () => {
     t = await startTestApp();
-    const world = { today: new Date(), extra: {} } as SeedWorld;
-    await seedAccounts(world);
-    const now = Date.now();
-    const season = await buildSignedSeason({
-      farm: world.organizations.farm, apiary: world.organizations.apiary, colonies: 20, delivered: false, minFramesOfBees: 6,
-      onSite: { from: new Date(now + 86_400_000), to: new Date(now + 21 * 86_400_000) },
-    });
-    placementId = season.placement.id;
+    placementId = await buildScheduledFieldPlacement(20);
     browser = await launchBrowser();
   });
   afterAll(async () => {
