@@ -25,7 +25,7 @@ function takeLock() {
       return;
     } catch (err) {
       if (err.code !== 'EEXIST') throw err;
-      const since = existsSync(installLock) ? statSync(installLock, { throwIfNoEntry: false })?.mtimeMs ?? Date.now() : Date.now();
+      const since = statSync(installLock, { throwIfNoEntry: false })?.mtimeMs ?? Date.now();
       if (Date.now() - since > staleLockMs) rmSync(installLock, { recursive: true, force: true });
       else {
         if (!waited) log('another run is installing npm dependencies; waiting for it');
