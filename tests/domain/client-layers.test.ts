@@ -30,7 +30,6 @@ const notYetMoved = new Set([
   'client/src/components/invoices/InvoiceCreditNoteForm.vue',
   'client/src/components/invoices/InvoiceDraftForm.vue',
   'client/src/components/invoices/InvoiceManualPaymentForm.vue',
-  'client/src/components/map/MapView.vue',
   'client/src/components/organization/OrganizationInviteForm.vue',
   'client/src/components/sprays/SprayForm.vue',
   'client/src/components/sprays/SprayPestTiming.vue',
