@@ -24,7 +24,6 @@ const notYetMoved = new Set([
   'client/src/components/blocks/BlockForm.vue',
   'client/src/components/common/UserPreferencesDialog.vue',
   'client/src/components/dashboard/DashboardColoniesOwnedForm.vue',
-  'client/src/components/invoices/InvoiceBillableList.vue',
   'client/src/components/invoices/InvoiceCreditNoteForm.vue',
   'client/src/components/invoices/InvoiceDraftForm.vue',
   'client/src/components/invoices/InvoiceManualPaymentForm.vue',
