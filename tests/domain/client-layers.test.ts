@@ -24,13 +24,11 @@ const notYetMoved = new Set([
   'client/src/components/blocks/BlockForm.vue',
   'client/src/components/common/UserPreferencesDialog.vue',
   'client/src/components/dashboard/DashboardColoniesOwnedForm.vue',
-  'client/src/components/invoices/InvoiceCreditNoteForm.vue',
   'client/src/components/invoices/InvoiceDraftForm.vue',
   'client/src/components/invoices/InvoiceManualPaymentForm.vue',
   'client/src/components/organization/OrganizationInviteForm.vue',
   'client/src/components/sprays/SprayForm.vue',
   'client/src/components/sprays/SprayPestTiming.vue',
-  'client/src/components/weather/WeatherUploadPanel.vue',
   'client/src/pages/blocks/StageThresholdsPage.vue',
   'client/src/pages/requests/RequestFormPage.vue',
 ]);
