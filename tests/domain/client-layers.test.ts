@@ -24,7 +24,6 @@ const notYetMoved = new Set([
   'client/src/components/blocks/BlockForm.vue',
   'client/src/components/common/UserPreferencesDialog.vue',
   'client/src/components/dashboard/DashboardColoniesOwnedForm.vue',
-  'client/src/components/invoices/InvoiceManualPaymentForm.vue',
   'client/src/components/organization/OrganizationInviteForm.vue',
   'client/src/components/sprays/SprayForm.vue',
   'client/src/components/sprays/SprayPestTiming.vue',
