@@ -23,7 +23,6 @@ function apiValueImports(source: string): string[] {
 const notYetMoved = new Set([
   'client/src/components/dashboard/DashboardColoniesOwnedForm.vue',
   'client/src/components/organization/OrganizationInviteForm.vue',
-  'client/src/components/sprays/SprayForm.vue',
   'client/src/components/sprays/SprayPestTiming.vue',
   'client/src/pages/blocks/StageThresholdsPage.vue',
   'client/src/pages/requests/RequestFormPage.vue',
