@@ -24,7 +24,6 @@ const notYetMoved = new Set([
   'client/src/components/dashboard/DashboardColoniesOwnedForm.vue',
   'client/src/components/organization/OrganizationInviteForm.vue',
   'client/src/components/sprays/SprayPestTiming.vue',
-  'client/src/pages/blocks/StageThresholdsPage.vue',
   'client/src/pages/requests/RequestFormPage.vue',
 ]);
 
