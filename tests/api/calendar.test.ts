@@ -3,7 +3,7 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { parse } from 'csv-parse/sync';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { apiClient, signedInClient, type ApiClient } from '../support/api-client.js';
-import { buildMarket, requestPayload } from '../support/builders/requests.js';
+import { agreementMadeAt, buildMarket, requestPayload } from '../support/builders/requests.js';
 import { planSpray, sprayInput } from '../support/builders/sprays.js';
 
 /** Unfolds RFC 5545 content lines (CRLF followed by a space continues the line). */
@@ -28,6 +28,7 @@ describe('calendar feed and exports', () => {
     agreementId = c.agreementId;
     await grower.post(`/api/agreements/${agreementId}/confirm`).expect(200);
     await keeper.post(`/api/agreements/${agreementId}/confirm`).expect(200);
+    await agreementMadeAt({ id: agreementId }, new Date('2026-11-23T15:30:00.000Z')); // before the drop-off below
     const placement = (await crew.get(`/api/placements?agreementId=${agreementId}`)).body.placements[0];
     await crew.post(`/api/placements/${placement.id}/delivery`, { coloniesDelivered: 36, deliveredAt: '2026-11-30T15:30:00.000Z' }).expect(201);
   });

@@ -8,7 +8,7 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
-import { buildMarket, requestPayload } from '../support/builders/requests.js';
+import { agreementMadeAt, buildMarket, requestPayload } from '../support/builders/requests.js';
 
 describe('Idempotency-Key on the field steps', () => {
   let t: TestApp;
@@ -30,6 +30,8 @@ describe('Idempotency-Key on the field steps', () => {
     const c = (await keeper.post(`/api/requests/${r.id}/commitments`, { colonies }).expect(201)).body.commitment;
     await grower.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
     await keeper.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
+    // Made a week ago, so the phone's records from hours ago are not before the agreement.
+    await agreementMadeAt({ id: c.agreementId }, new Date(Date.now() - 7 * 86_400_000));
     return (await crew.get(`/api/placements?agreementId=${c.agreementId}`).expect(200)).body.placements[0].id;
   }
 

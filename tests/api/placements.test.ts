@@ -5,7 +5,7 @@ import { io, type Socket } from 'socket.io-client';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
 import { defaultTestPassword } from '../support/builders/accounts.js';
-import { buildMarket, requestPayload } from '../support/builders/requests.js';
+import { agreementMadeAt, buildMarket, requestPayload } from '../support/builders/requests.js';
 import { recheckRanSince } from '../support/recheck-jobs.js';
 
 /** A socket signed in as the user, as the browser's is (session cookie). */
@@ -50,6 +50,8 @@ describe('placements', () => {
     const c = (await keeper.post(`/api/requests/${r.id}/commitments`, { colonies }).expect(201)).body.commitment;
     await grower.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
     await keeper.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
+    // Made a week ago, so drop-offs recorded days ago are not before the agreement.
+    await agreementMadeAt({ id: c.agreementId }, new Date(Date.now() - 7 * 86_400_000));
     const placements = (await crew.get(`/api/placements?agreementId=${c.agreementId}`)).body.placements;
     return { placement: placements[0], agreementId: c.agreementId as string };
   }

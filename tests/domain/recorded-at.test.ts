@@ -2,7 +2,7 @@
 // The five-minute clock tolerance is common practice, no source (phones set their clocks
 // from the network, usually to within seconds; a few minutes covers a phone set by hand).
 import { describe, it, expect } from 'vitest';
-import { boundRecordedAt, clockToleranceMs } from '../../shared/domain/recorded-at.js';
+import { boundRecordedAt, clockToleranceMs, isBeforeAgreement } from '../../shared/domain/recorded-at.js';
 
 const received = new Date('2027-04-10T07:40:00Z');
 
@@ -18,5 +18,17 @@ describe('boundRecordedAt', () => {
   });
   it('refuses a time further ahead than the tolerance', () => {
     expect(boundRecordedAt(new Date(received.getTime() + clockToleranceMs + 1000), received)).toEqual({ ok: false, reason: 'in-the-future' });
+  });
+});
+
+describe('isBeforeAgreement', () => {
+  // Common practice, no source: colonies are rented from the moment the agreement exists.
+  const made = new Date('2027-03-20T16:00:00Z');
+  it('finds a time before the agreement was made', () => {
+    expect(isBeforeAgreement(new Date('2027-03-20T15:59:59Z'), made)).toBe(true);
+  });
+  it('accepts the moment it was made and any time after', () => {
+    expect(isBeforeAgreement(made, made)).toBe(false);
+    expect(isBeforeAgreement(new Date('2027-04-10T05:12:00Z'), made)).toBe(false);
   });
 });

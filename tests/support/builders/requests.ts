@@ -78,6 +78,11 @@ export async function confirmAgreementSide(agreement: { id: string }, side: 'far
   });
 }
 
+/** Says an agreement was made at `at` (an earlier time), so field steps recorded since then are not before it. */
+export async function agreementMadeAt(agreement: { id: string }, at: Date) {
+  await builderSequelize().query('UPDATE agreements SET created_at = :at WHERE id = :id', { replacements: { id: agreement.id, at: at.toISOString() } });
+}
+
 /** An audit-trail entry on a request. */
 export async function buildRequestEvent(request: { id: string }, actor: { id: string } | null, action: string, at: Date, detail: Record<string, unknown> = {}) {
   await builderSequelize().query(

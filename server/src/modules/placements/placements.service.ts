@@ -2,7 +2,7 @@
 // records strength checks, and marks them picked up; a grower may dispute a count. Each
 // step is stored, told to the other side at once and by e-mail; delivery and pickup queue
 // the spray conflict re-check in their transaction (placement-events.ts). on_site is the agreement's window until
-// delivery, then [delivered_at, picked_up_at).
+// delivery, then [delivered_at, picked_up_at). A step's recorded time is bounded in field-step-time.ts.
 import { Op, type Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
@@ -16,7 +16,7 @@ import { recordRequestEvent } from '../requests/request-events.js';
 import { mailOrganizations, publish } from '../requests/notify.js';
 import { placementChanged, type PlacementChangeReason } from './placement-events.js';
 import { sniffImageType } from './placement-photos.js';
-import { boundRecordedAt } from '../../../../shared/domain/recorded-at.js';
+import { recordedOrReceived, refuseBeforeAgreement } from './field-step-time.js';
 import { zonedDateTime } from '../../../../shared/domain/zoned-time.js';
 import { agreementStateSet } from '../../../../shared/labels/agreements.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
@@ -93,7 +93,7 @@ export function createPlacementsService(ctx: AppContext) {
   async function lockParty(user: AuthUser, id: string, t: Transaction, parties = ofParty(user.organizationId)) {
     return ctx.models.Placement.findOne({
       where: { id },
-      include: [{ model: ctx.models.Agreement, as: 'agreement', attributes: ['id', 'state', 'requestId', 'farmId', 'apiaryId', 'minFramesOfBees', 'version'], where: parties }],
+      include: [{ model: ctx.models.Agreement, as: 'agreement', attributes: ['id', 'state', 'requestId', 'farmId', 'apiaryId', 'minFramesOfBees', 'version', 'createdAt'], where: parties }],
       transaction: t,
       lock: { level: t.LOCK.UPDATE, of: ctx.models.Placement },
     });
@@ -107,12 +107,8 @@ export function createPlacementsService(ctx: AppContext) {
     return row;
   }
 
-  /** The step's time: the phone's recorded time, never in the future. */
-  function timeOrNow(value: string | undefined, field: string): Date {
-    const bounded = boundRecordedAt(value ? new Date(value) : null, ctx.now());
-    if (!bounded.ok) throw badRequest(pleaseCheck([field]), { [field]: 'cannot be in the future' });
-    return bounded.at;
-  }
+  /** The step's time: the phone's recorded time, never in the future (before the agreement is checked once it is locked). */
+  const timeOrNow = (value: string | undefined, field: string) => recordedOrReceived(value, field, ctx.now());
 
   /** Tells the other side by e-mail; `mailText` gets the farm's time zone so times read in it. */
   async function after(user: AuthUser, id: string, reason: PlacementChangeReason, mailText: string | ((timeZone: string) => string)) {
@@ -153,6 +149,7 @@ export function createPlacementsService(ctx: AppContext) {
       await ctx.sequelize.transaction(async (t) => {
         const p = await lockForStep(user, id, t);
         if (p.state !== 'scheduled') throw wrongState(`These colonies are already ${p.state === 'delivered' ? 'dropped off' : 'picked up'}.`);
+        await refuseBeforeAgreement(ctx, t, p.agreement!, at, 'deliveredAt', 'drop-off');
         const site = await ctx.models.DropSite.findByPk(p.dropSiteId, { attributes: ['location'], transaction: t, rejectOnEmpty: true });
         await p.update({
           state: 'delivered', coloniesDelivered: body.coloniesDelivered, deliveredAt: at, deliveredBy: user.id,
@@ -171,6 +168,7 @@ export function createPlacementsService(ctx: AppContext) {
       const ended = await ctx.sequelize.transaction(async (t) => {
         const p = await lockForStep(user, id, t);
         if (p.state !== 'delivered') throw wrongState(p.state === 'scheduled' ? 'These colonies have not been dropped off yet.' : 'These colonies are already picked up.');
+        await refuseBeforeAgreement(ctx, t, p.agreement!, at, 'pickedUpAt', 'pickup');
         if (body.coloniesPickedUp > p.coloniesDelivered!) throw badRequest(pleaseCheck(['coloniesPickedUp']), { coloniesPickedUp: `cannot be more than the ${p.coloniesDelivered} dropped off` });
         if (at <= p.deliveredAt!) throw badRequest(pleaseCheck(['pickedUpAt']), { pickedUpAt: 'must be after the drop-off' });
         await p.update({
@@ -197,6 +195,7 @@ export function createPlacementsService(ctx: AppContext) {
       await ctx.sequelize.transaction(async (t) => {
         const p = await lockForStep(user, id, t);
         if (p.state !== 'delivered') throw wrongState(p.state === 'scheduled' ? 'Colonies are checked once they are dropped off.' : 'These colonies are already picked up.');
+        await refuseBeforeAgreement(ctx, t, p.agreement!, at, 'checkedAt', 'strength check');
         const group = body.coloniesInGroup ?? p.coloniesDelivered!;
         const required = minimumSampleSize(group);
         const fields: Record<string, string> = {};
@@ -237,9 +236,11 @@ export function createPlacementsService(ctx: AppContext) {
       if (!file) throw badRequest('Please attach a photo.', { photo: 'is required' });
       const type = sniffImageType(file.buffer);
       if (!type || type !== file.mimetype) throw badRequest('That file is not the image it says it is.', { photo: 'must be a JPEG, PNG or WebP image' });
+      const at = recordedAt ? timeOrNow(recordedAt, 'recordedAt') : null;
       await ctx.sequelize.transaction(async (t) => {
         const p = await lockForStep(user, id, t);
         if (p.state === 'scheduled' && step !== 'delivery') throw wrongState('Colonies are not delivered yet.');
+        if (at) await refuseBeforeAgreement(ctx, t, p.agreement!, at, 'recordedAt', 'photo');
         await ctx.models.PlacementPhoto.create({
           placementId: id, step, contentType: type, byteSize: file.size, data: file.buffer, uploadedBy: user.id, createdAt: ctx.now(),
           recordedAt: recordedAt ? new Date(recordedAt) : null,
