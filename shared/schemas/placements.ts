@@ -34,15 +34,17 @@ export const strengthCheckBody = z.object({
 });
 export type StrengthCheckBody = z.input<typeof strengthCheckBody>;
 
+// Refusals name the steps as people see them (fieldStepSet in shared/labels/placements.ts),
+// never by their stored codes.
 export const disputeBody = z.object({
-  step: z.enum(['delivery', 'pickup'], 'must be delivery or pickup'),
+  step: z.enum(['delivery', 'pickup'], 'must be drop-off or pickup'),
   countedColonies: count.nullable().optional(),
   note: z.string().trim().min(1, 'is required').max(2000),
 });
 export type DisputeBody = z.input<typeof disputeBody>;
 
 export const photoParams = z.object({ id: z.uuid('must be a valid id'), photoId: z.uuid('must be a valid id') });
-export const photoStepBody = z.object({ step: z.enum(['delivery', 'strength-check', 'pickup']).default('delivery'), recordedAt: isoDateTimeSchema.optional() });
+export const photoStepBody = z.object({ step: z.enum(['delivery', 'strength-check', 'pickup'], 'must be drop-off, strength check or pickup').default('delivery'), recordedAt: isoDateTimeSchema.optional() });
 
 export interface StrengthCheckDto {
   id: string;
