@@ -1,9 +1,12 @@
 // The phone's outbox for field records, in IndexedDB through Dexie: deliveries, strength
 // checks, pickups and photos recorded without signal survive a reload, a closed tab and a
 // restarted phone until the server has them. Photos are kept as Blobs beside their record.
+// Two writers keep the same fields: the page's outbox (outbox.ts) and, under Background
+// Sync with no page in front, the service worker (client/public/field-sync-sw.js, plain
+// IndexedDB on this database and store); a change of fields here is a change there too.
 import Dexie, { type EntityTable } from 'dexie';
 import type { GeoPoint } from '@shared/schemas/common';
-import type { DeliveryBody, PickupBody, StrengthCheckBody } from '@shared/schemas/placements';
+import type { DeliveryBody, PickupBody, PlacementDto, StrengthCheckBody } from '@shared/schemas/placements';
 
 export type FieldRecordKind = 'delivery' | 'strength-check' | 'pickup' | 'photo';
 /** waiting: not sent yet (or to be sent again); sending: on its way; sent: the server has it; rejected: the server refused it. */
@@ -31,8 +34,12 @@ export interface FieldRecord {
   accuracyM?: number | null;
   state: FieldRecordState;
   attempts: number;
-  /** Why the server refused it (rejected), in words. */
+  /** Why the server refused it (rejected): the server's message (shown with `recorded` by refusal-words.ts). */
   error?: string | null;
+  /** On a refusal for a step already taken: the placement as the server records it. */
+  recorded?: PlacementDto | null;
+  /** When a sender last marked it sending (ISO): the service worker leaves a record another sender took moments ago. */
+  sendingSince?: string | null;
   sentAt?: string | null;
 }
 

@@ -2,7 +2,9 @@
 // recorded, whether the phone has signal or not. Sending runs when a record is added, when
 // the connection returns (`online`, or Background Sync through the service worker), when
 // the app starts or comes back to the front, and again after a failed attempt. Each record
-// keeps its Idempotency-Key across attempts, so the server keeps it once.
+// keeps its Idempotency-Key across attempts, so the server keeps it once. Under Background
+// Sync with no page in front, the service worker sends the same records the same way
+// (client/public/field-sync-sw.js); each sender notes when it took a record (`sendingSince`).
 // - no connection or a server error: the record waits and is tried again;
 // - session expired (401): everything waits and the crew is asked to sign in again;
 // - refused (4xx, e.g. the placement was cancelled or already delivered by someone else):
@@ -12,7 +14,6 @@ import { ApiError } from '@/api/http';
 import { fieldRecordsApi } from '@/api/field-records';
 import { messageOf } from '@/api/error-messages';
 import type { PlacementDto } from '@shared/schemas/placements';
-import { placementStateSet } from '@shared/labels/placements';
 import { fieldDb, type FieldRecord } from './field-db';
 
 const retryAfterMs = 30_000;
@@ -20,6 +21,8 @@ const keepSentForMs = 3 * 86_400_000;
 
 /** True while sending waits for the crew member to sign in again. */
 export const needsSignIn = ref(false);
+/** Counts the service worker's sends: Dexie's live queries do not see its writes, so readers read again on a change. */
+export const changedByWorker = ref(0);
 let currentUserId: () => string | null = () => null;
 let running: Promise<void> | null = null;
 let retryTimer: ReturnType<typeof setTimeout> | null = null;
@@ -42,7 +45,8 @@ export async function addFieldRecord(record: NewFieldRecord): Promise<void> {
 }
 
 export async function retryFieldRecord(seq: number): Promise<void> {
-  await fieldDb.records.update(seq, { state: 'waiting', error: null });
+  await fieldDb.records.update(seq, { state: 'waiting', error: null, recorded: null });
+  askBackgroundSync();
   void sendWaiting();
 }
 
@@ -68,12 +72,9 @@ function send(record: FieldRecord): Promise<{ placement: PlacementDto }> {
   }
 }
 
-/** The server's refusal in words, with what it already records when it says so. */
-function refusal(err: ApiError): string {
-  const placement = (err.recorded as { placement?: PlacementDto } | undefined)?.placement;
-  if (!placement) return messageOf(err);
-  const delivered = placement.coloniesDelivered != null ? ` ${placement.coloniesDelivered} colonies dropped off${placement.deliveredByName ? ` by ${placement.deliveredByName}` : ''}.` : '';
-  return `${messageOf(err)} Recorded: ${placementStateSet.labels[placement.state]}.${delivered}`;
+/** What the server already records, on a refusal that says so (a 409 for a step already taken). */
+function recordedOf(err: ApiError): PlacementDto | null {
+  return (err.recorded as { placement?: PlacementDto } | undefined)?.placement ?? null;
 }
 
 function retryLater() {
@@ -94,7 +95,7 @@ async function sendAll(): Promise<void> {
     if (!userId || !navigator.onLine) return;
     const record = await nextWaiting(userId);
     if (!record) return;
-    await fieldDb.records.update(record.seq!, { state: 'sending', attempts: record.attempts + 1 });
+    await fieldDb.records.update(record.seq!, { state: 'sending', attempts: record.attempts + 1, sendingSince: new Date().toISOString() });
     try {
       await send(record);
       await fieldDb.records.update(record.seq!, { state: 'sent', sentAt: new Date().toISOString(), error: null, photo: record.kind === 'photo' ? undefined : record.photo });
@@ -106,7 +107,7 @@ async function sendAll(): Promise<void> {
         return;
       }
       if (err instanceof ApiError && err.status >= 400 && err.status < 500 && ![408, 425, 429].includes(err.status)) {
-        await fieldDb.records.update(record.seq!, { state: 'rejected', error: refusal(err) });
+        await fieldDb.records.update(record.seq!, { state: 'rejected', error: messageOf(err), recorded: recordedOf(err) });
         continue;
       }
       // No connection, or the server could not answer: wait and try again.
@@ -131,6 +132,7 @@ export function startFieldOutbox(userId: () => string | null): void {
   document.addEventListener('visibilitychange', () => { if (document.visibilityState === 'visible') void sendWaiting(); });
   navigator.serviceWorker?.addEventListener('message', (event: MessageEvent<{ type?: string }>) => {
     if (event.data?.type === 'field-outbox:send') void sendWaiting();
+    if (event.data?.type === 'field-outbox:changed') changedByWorker.value++;
   });
   void fieldDb.records.where('state').equals('sent').and((r) => Date.now() - Date.parse(r.sentAt ?? '') > keepSentForMs).delete();
 }
