@@ -1,0 +1,192 @@
+// Background Sync with no page open, in Debian's Chromium against the production build: a
+// drop-off recorded without signal waits in the phone's outbox; the page is closed; when
+// the browser fires the outbox's sync event (dispatched here through the DevTools
+// protocol, `ServiceWorker.dispatchSyncEvent`, as the browser does once the signal
+// returns) the service worker sends the record itself and marks it as the page's outbox
+// does: sent (the server keeps it once), refused with the server's reason, or still
+// waiting when the session has ended (the page then asks to sign in again).
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import { QueryTypes } from 'sequelize';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { startTestApp, type TestApp } from '../support/test-app.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
+import { signedInClient } from '../support/api-client.js';
+import { buildSignedSeason } from '../support/builders/season.js';
+import { seedAccounts } from '../../seed/parts/accounts.seed.js';
+import type { SeedWorld } from '../../seed/seed-world.js';
+import { placementStateSet } from '../../shared/labels/placements.js';
+
+const poll = <T>(check: () => T | Promise<T>) => expect.poll(check, { timeout: 20_000, interval: 150 });
+
+/** What the outbox keeps of each record, read inside the service worker (no page of the app open). */
+interface StoredRecord { key: string; kind: string; state: string; attempts: number; error: string | null; recorded: { state: string } | null; sentAt: string | null }
+
+describe('field records sent by the service worker under Background Sync', () => {
+  let t: TestApp;
+  let browser: Browser;
+  const placements: { sent: string; signedOut: string; refused: string } = { sent: '', signedOut: '', refused: '' };
+  const watched: WatchedPage[] = [];
+
+  beforeAll(async () => {
+    t = await startTestApp();
+    const world = { today: new Date(), extra: {} } as SeedWorld;
+    await seedAccounts(world);
+    const now = Date.now();
+    for (const name of ['sent', 'signedOut', 'refused'] as const) {
+      const season = await buildSignedSeason({
+        farm: world.organizations.farm, apiary: world.organizations.apiary, colonies: 16, delivered: false, minFramesOfBees: 6,
+        onSite: { from: new Date(now + 86_400_000), to: new Date(now + 21 * 86_400_000) },
+      });
+      placements[name] = season.placement.id;
+    }
+    browser = await launchBrowser();
+  });
+  afterAll(async () => {
+    for (const [i, w] of watched.entries()) if (!w.page.isClosed()) await saveScreenshot(w.page, `field-background-sync-end-${i}`).catch(() => {});
+    await browser?.close();
+    await t?.stop();
+  });
+
+  const rows = <T extends object>(sql: string, replacements: Record<string, unknown>) => t.context.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
+
+  /** Signs the crew member in, records a drop-off at the placement without signal, then closes the page. */
+  async function dropOffOfflineAndClose(placementId: string, colonies: number): Promise<BrowserContext> {
+    const crew = await openWatchedPage(browser, { width: 412, height: 915, serviceWorkers: 'allow' });
+    watched.push(crew);
+    const { page, context } = crew;
+    await signInThroughPage(page, t.baseUrl, 'crew@apiary.test', 'pollen-demo-2026');
+    await page.goto(`${t.baseUrl}/placements/${placementId}`);
+    await poll(() => page.evaluate(() => navigator.serviceWorker.ready.then(() => !!navigator.serviceWorker.controller))).toBe(true);
+    await page.locator('#delivered-count').waitFor();
+
+    await context.setOffline(true);
+    await poll(() => page.evaluate(() => navigator.onLine)).toBe(false);
+    await page.locator('#delivered-count').fill(String(colonies));
+    await page.getByRole('button', { name: 'Mark dropped off' }).click();
+    await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe('1 record waiting to send');
+    expect(crew.externalRequests).toEqual([]);
+    await page.close();
+    return context;
+  }
+
+  /** The outbox's records, read through the service worker. */
+  async function outboxOf(context: BrowserContext): Promise<StoredRecord[]> {
+    const worker = context.serviceWorkers().find((w) => w.url().startsWith(t.baseUrl)) ?? (await context.waitForEvent('serviceworker'));
+    return worker.evaluate(() => new Promise<StoredRecord[]>((resolve, reject) => {
+      const open = indexedDB.open('pollenpact-field');
+      open.onerror = () => reject(open.error);
+      open.onsuccess = () => {
+        const db = open.result;
+        const all = db.transaction('records').objectStore('records').getAll();
+        all.onerror = () => reject(all.error);
+        all.onsuccess = () => {
+          db.close();
+          resolve((all.result as StoredRecord[]).map((r) => ({
+            key: r.key, kind: r.kind, state: r.state, attempts: r.attempts, error: r.error ?? null, recorded: r.recorded ? { state: r.recorded.state } : null, sentAt: r.sentAt ?? null,
+          })));
+        };
+      };
+    }));
+  }
+
+  /**
+   * Fires the outbox's sync event as the browser would, from a blank page of the same
+   * context (not of the app's origin, so the worker sees no page of its own open).
+   */
+  async function dispatchOutboxSync(context: BrowserContext, times = 1): Promise<Page> {
+    const blank = await context.newPage();
+    const cdp = await context.newCDPSession(blank);
+    const scope = `${t.baseUrl}/`;
+    const registrationId = new Promise<string>((resolve) => {
+      cdp.on('ServiceWorker.workerRegistrationUpdated', ({ registrations }) => {
+        const mine = registrations.find((r) => r.scopeURL === scope && !r.isDeleted);
+        if (mine) resolve(mine.registrationId);
+      });
+    });
+    await cdp.send('ServiceWorker.enable');
+    const id = await registrationId;
+    await Promise.all(Array.from({ length: times }, () => cdp.send('ServiceWorker.dispatchSyncEvent', { origin: t.baseUrl, registrationId: id, tag: 'field-outbox', lastChance: false })));
+    return blank;
+  }
+
+  it('sends a drop-off with no page open, once, and the outbox shows it sent', async () => {
+    const id = placements.sent;
+    const context = await dropOffOfflineAndClose(id, 14);
+    const [waiting] = await outboxOf(context);
+    expect(waiting).toMatchObject({ kind: 'delivery', state: 'waiting', attempts: 0 });
+
+    await context.setOffline(false);
+    // Two sync events at once (the browser's own and ours may meet): the record goes once.
+    const blank = await dispatchOutboxSync(context, 2);
+    await poll(async () => (await outboxOf(context))[0]?.state).toBe('sent');
+    const [sent] = await outboxOf(context);
+    expect(sent).toMatchObject({ key: waiting.key, state: 'sent', attempts: 1, error: null });
+    expect(sent.sentAt).toBeTruthy();
+
+    const [placement] = await rows<{ state: string; colonies_delivered: number; email: string }>(
+      'SELECT p.state, p.colonies_delivered, u.email FROM placements p JOIN users u ON u.id = p.delivered_by WHERE p.id = :id', { id });
+    expect(placement).toEqual({ state: 'delivered', colonies_delivered: 14, email: 'crew@apiary.test' });
+    expect(await rows("SELECT id FROM hive_request_events WHERE action = 'placement-delivered' AND detail->>'placementId' = :id", { id })).toHaveLength(1);
+    expect(await rows('SELECT response_status FROM idempotency_keys WHERE key = :key', { key: waiting.key })).toEqual([{ response_status: 201 }]);
+
+    // Opened again, the page shows what the worker did.
+    await blank.goto(`${t.baseUrl}/placements/${id}`);
+    await poll(() => blank.getByTestId('outbox-waiting').textContent()).toBe('Everything recorded here is sent');
+    expect(await blank.locator('.pp-outbox-item[data-state="sent"]').count()).toBe(1);
+    await blank.close();
+  });
+
+  it('leaves the drop-off waiting when the session has ended, and the page asks to sign in again', async () => {
+    const id = placements.signedOut;
+    const context = await dropOffOfflineAndClose(id, 12);
+    // The session ends on the server meanwhile (expired, or ended from another device).
+    expect((await t.context.sequelize.query('DELETE FROM user_sessions RETURNING sid', { type: QueryTypes.SELECT })).length).toBeGreaterThan(0);
+
+    await context.setOffline(false);
+    const sessionCheck = context.waitForEvent('response', { predicate: (r) => new URL(r.url()).pathname === '/api/auth/me' && !!r.request().serviceWorker(), timeout: 20_000 });
+    const posts: string[] = [];
+    context.on('request', (r) => { if (r.method() === 'POST') posts.push(r.url()); });
+    const blank = await dispatchOutboxSync(context);
+    expect((await sessionCheck).status()).toBe(401);
+    await new Promise((resolve) => setTimeout(resolve, 1000));
+
+    expect(await outboxOf(context)).toMatchObject([{ kind: 'delivery', state: 'waiting', attempts: 0, error: null }]);
+    expect(posts).toEqual([]);
+    expect((await rows<{ state: string }>('SELECT state FROM placements WHERE id = :id', { id }))[0].state).toBe('scheduled');
+
+    // The page sends the crew member to sign in; once signed in, the record goes, once.
+    await blank.goto(`${t.baseUrl}/placements/${id}`);
+    await blank.waitForURL((url) => url.pathname === '/sign-in');
+    await blank.getByLabel('E-mail').fill('crew@apiary.test');
+    await blank.getByLabel('Password').fill('pollen-demo-2026');
+    await blank.getByRole('button', { name: 'Sign in' }).click();
+    await blank.waitForURL((url) => url.pathname === `/placements/${id}`);
+    await poll(() => blank.getByTestId('outbox-waiting').textContent()).toBe('Everything recorded here is sent');
+    expect((await rows<{ colonies_delivered: number }>('SELECT colonies_delivered FROM placements WHERE id = :id', { id }))[0].colonies_delivered).toBe(12);
+    expect(await rows("SELECT id FROM hive_request_events WHERE action = 'placement-delivered' AND detail->>'placementId' = :id", { id })).toHaveLength(1);
+    await blank.close();
+  });
+
+  it('marks the drop-off refused with the server\'s reason when someone else dropped off meanwhile', async () => {
+    const id = placements.refused;
+    const context = await dropOffOfflineAndClose(id, 16);
+    const keeper = await signedInClient(t.app, 'keeper@apiary.test');
+    await keeper.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 9 }).expect(201);
+
+    await context.setOffline(false);
+    const refusal = context.waitForEvent('response', { predicate: (r) => r.url().endsWith(`/api/placements/${id}/delivery`) && !!r.request().serviceWorker(), timeout: 20_000 });
+    const blank = await dispatchOutboxSync(context);
+    const answer = await refusal;
+    expect(answer.status()).toBe(409);
+    const reason = ((await answer.json()) as { error: { message: string } }).error.message;
+    await poll(async () => (await outboxOf(context))[0]?.state).toBe('rejected');
+    expect(await outboxOf(context)).toMatchObject([{ state: 'rejected', attempts: 1, error: reason, recorded: { state: 'delivered' } }]);
+
+    // The page words it as its own outbox does: the reason, then what the server records.
+    await blank.goto(`${t.baseUrl}/placements/${id}`);
+    const shown = blank.locator('.pp-outbox-item[data-state="rejected"] .pp-outbox-error');
+    await poll(() => shown.textContent()).toBe(`${reason} Recorded: ${placementStateSet.labels.delivered}. 9 colonies dropped off by Tobin Waxley.`);
+    expect((await rows<{ colonies_delivered: number }>('SELECT colonies_delivered FROM placements WHERE id = :id', { id }))[0].colonies_delivered).toBe(9);
+    await blank.close();
+  });
+});
