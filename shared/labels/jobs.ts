@@ -15,7 +15,7 @@ export const jobStateSet = labelSet<JobState>('queue job states', jobStates, {
 });
 
 /** The background queues (server/src/jobs/queue-names.ts). */
-export const queueCodes = ['email-send', 'invoice-overdue-reminders', 'invoice-email', 'bloom-digest', 'conflict-recheck', 'alert-publish'] as const;
+export const queueCodes = ['email-send', 'invoice-overdue-reminders', 'invoice-email', 'bloom-digest', 'conflict-recheck', 'alert-publish', 'idempotency-keys-prune'] as const;
 export type QueueCode = (typeof queueCodes)[number];
 
 export const queueSet = labelSet<QueueCode>('background queues', queueCodes, {
@@ -25,4 +25,5 @@ export const queueSet = labelSet<QueueCode>('background queues', queueCodes, {
   'bloom-digest': 'Bloom window digests',
   'conflict-recheck': 'Spray conflict re-checks',
   'alert-publish': 'Spray alerts to announce',
+  'idempotency-keys-prune': 'Old field-record keys to clear',
 });

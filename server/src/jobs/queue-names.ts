@@ -9,6 +9,7 @@ export const queueNames = {
   bloomDigest: 'bloom-digest',
   conflictRecheck: 'conflict-recheck',
   alertPublish: 'alert-publish',
+  idempotencyKeyPrune: 'idempotency-keys-prune',
 } as const;
 
 export type QueueName = (typeof queueNames)[keyof typeof queueNames];

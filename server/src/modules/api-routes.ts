@@ -29,6 +29,7 @@ import { startAlertPublishWorker } from './alerts/alert-publish.js';
 import { invoicesRoutes } from './invoices/invoices.routes.js';
 import { paymentsRoutes, paymentsWebhookRoutes } from './payments/payments.routes.js';
 import { startOverdueReminders } from './invoices/overdue-reminders.job.js';
+import { startIdempotencyKeyPrune } from './placements/idempotency-keys-prune.job.js';
 import { startInvoiceEmailWorker } from './invoices/invoice-mail.js';
 
 export function apiRoutes(ctx: AppContext, passport: Passport, csrf: Csrf): Router {
@@ -76,4 +77,5 @@ export async function startFeatureWorkers(ctx: AppContext): Promise<void> {
   await startInvoiceEmailWorker(ctx);
   await startConflictRecheckWorker(ctx);
   await startAlertPublishWorker(ctx);
+  await startIdempotencyKeyPrune(ctx);
 }
