@@ -78,6 +78,35 @@ describe('Idempotency-Key on the field steps', () => {
     expect(await count("SELECT count(*) AS n FROM hive_request_events WHERE action = 'placement-delivered' AND detail->>'placementId' = :id", other)).toBe(1);
   });
 
+  it('keeps one pickup for five copies with one key; a second key for the same pickup is a 409 with what is recorded', async () => {
+    const pickedUpCount = (id: string) => count("SELECT count(*) AS n FROM hive_request_events WHERE action = 'placement-picked-up' AND detail->>'placementId' = :id", id);
+    const id = await scheduledPlacementId(20);
+    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 20, deliveredAt: new Date(Date.now() - 3 * 86_400_000).toISOString() }).set('Idempotency-Key', randomUUID()).expect(201);
+    const pickup = { coloniesPickedUp: 19, pickedUpAt: new Date(Date.now() - 3_600_000).toISOString() };
+    const key = randomUUID();
+    const copies = await Promise.all(Array.from({ length: 5 }, () => crew.post(`/api/placements/${id}/pickup`, pickup).set('Idempotency-Key', key)));
+    expect(copies.map((c) => c.status)).toEqual([201, 201, 201, 201, 201]);
+    expect(copies.filter((c) => c.headers['idempotent-replayed'] === 'true')).toHaveLength(4);
+    const first = copies.find((c) => c.headers['idempotent-replayed'] !== 'true')!;
+    for (const copy of copies) expect(copy.body).toEqual(first.body);
+    expect(first.body.placement).toMatchObject({ state: 'picked-up', coloniesPickedUp: 19, pickedUpAt: pickup.pickedUpAt });
+    expect(await pickedUpCount(id)).toBe(1);
+
+    // Two phones record the same pickup under their own keys: one stands, the other learns what is recorded.
+    const other = await scheduledPlacementId(20);
+    await crew.post(`/api/placements/${other}/delivery`, { coloniesDelivered: 20, deliveredAt: new Date(Date.now() - 3 * 86_400_000).toISOString() }).set('Idempotency-Key', randomUUID()).expect(201);
+    const [a, b] = await Promise.all([
+      crew.post(`/api/placements/${other}/pickup`, { coloniesPickedUp: 20 }).set('Idempotency-Key', randomUUID()),
+      crew.post(`/api/placements/${other}/pickup`, { coloniesPickedUp: 17 }).set('Idempotency-Key', randomUUID()),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([201, 409]);
+    const [won, lost] = a.status === 201 ? [a, b] : [b, a];
+    expect(lost.body.error.code).toBe('wrong_state');
+    expect(lost.body.error.message).toBe('These colonies are already picked up.');
+    expect(lost.body.error.recorded.placement).toMatchObject({ id: other, state: 'picked-up', coloniesPickedUp: won.body.placement.coloniesPickedUp, pickedUpAt: won.body.placement.pickedUpAt });
+    expect(await pickedUpCount(other)).toBe(1);
+  });
+
   it('keeps the phone recorded time beside the time received, and uses the recorded time for the step', async () => {
     const id = await scheduledPlacementId(10);
     const recordedAt = new Date(Date.now() - 90 * 60_000).toISOString();
