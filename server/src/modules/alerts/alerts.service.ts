@@ -47,8 +47,10 @@ export function createAlertsService(ctx: AppContext) {
   return {
     async list(user: AuthUser, query: AlertListQuery): Promise<AlertListDto> {
       const orgId = orgOf(user);
-      const alerts = await loadAlertDtos(ctx, orgId, { sinceRevision: query.since, openOnly: query.state === 'open' });
+      // The latest revision is read before the alerts, so an alert changed in between is
+      // sent again on the next catch-up rather than skipped.
       const counts = await alertCounts(ctx.sequelize, orgId);
+      const alerts = await loadAlertDtos(ctx, orgId, { sinceRevision: query.since, openOnly: query.state === 'open' });
       return { alerts, latestRevision: counts.latest ?? query.since ?? 0, unseen: counts.unseen };
     },
 

@@ -18,8 +18,14 @@ export interface AuthUser {
   timeZone: string | null;
 }
 
-export function toAuthUser(user: User): AuthUser {
-  const org = user.organization ?? null;
+/** The user's columns a request needs, from a model instance or a raw row. */
+export type AuthUserSource = Pick<User, 'id' | 'email' | 'name' | 'role' | 'units' | 'timeZone'> & {
+  organization?: { id: string | null; kind: OrganizationKind; name: string; timeZone: string } | null;
+};
+
+export function toAuthUser(user: AuthUserSource): AuthUser {
+  // A raw row joined to no organization carries one with every column null.
+  const org = user.organization?.id ? user.organization : null;
   return {
     id: user.id,
     email: user.email,

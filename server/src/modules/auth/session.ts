@@ -1,7 +1,9 @@
 // Sessions in PostgreSQL (connect-pg-simple), so they survive a restart. The cookie is
 // httpOnly, SameSite=Lax and Secure over HTTPS; it rolls with activity (idle expiry) and a
-// session older than the absolute limit is ended whatever its activity.
-import session from 'express-session';
+// session older than the absolute limit is ended whatever its activity. The stored expiry
+// is moved on at most once every few minutes per session and process, not on every
+// request: the idle limit is hours long, and a write per read was most of a read's cost.
+import session, { type SessionData } from 'express-session';
 import connectPgSimple from 'connect-pg-simple';
 import type { RequestHandler } from 'express';
 import type pg from 'pg';
@@ -9,12 +11,41 @@ import type { Config } from '../../config/env.js';
 
 export const sessionCookieName = 'pp.sid';
 
+/** How often one process moves a session's stored expiry on while it is in use. */
+export const sessionTouchIntervalMs = 5 * 60_000;
+const rememberedTouches = 50_000;
+
+function throttledTouchStore(PgStore: ReturnType<typeof connectPgSimple>) {
+  return class ThrottledTouchStore extends PgStore {
+    private touchedAt = new Map<string, number>();
+
+    override touch(sid: string, sess: SessionData, callback?: () => void) {
+      const now = Date.now();
+      const last = this.touchedAt.get(sid);
+      if (last !== undefined && now - last < sessionTouchIntervalMs) return callback?.();
+      if (this.touchedAt.size >= rememberedTouches) this.touchedAt.clear();
+      this.touchedAt.set(sid, now);
+      super.touch(sid, sess, callback);
+    }
+
+    override set(sid: string, sess: SessionData, callback?: (err?: unknown) => void) {
+      this.touchedAt.set(sid, Date.now());
+      super.set(sid, sess, callback);
+    }
+
+    override destroy(sid: string, callback?: (err?: unknown) => void) {
+      this.touchedAt.delete(sid);
+      super.destroy(sid, callback);
+    }
+  };
+}
+
 export function createSessionMiddleware(config: Config, pool: pg.Pool): RequestHandler {
-  const PgStore = connectPgSimple(session);
+  const Store = throttledTouchStore(connectPgSimple(session));
   return session({
     name: sessionCookieName,
     secret: config.session.secret,
-    store: new PgStore({ pool, tableName: 'user_sessions', pruneSessionInterval: 15 * 60 }),
+    store: new Store({ pool, tableName: 'user_sessions', pruneSessionInterval: 15 * 60 }),
     resave: false,
     saveUninitialized: false,
     rolling: true,

@@ -31,6 +31,12 @@ export function createDashboardService(ctx: AppContext) {
   const db = ctx.sequelize;
   const extras = createSeasonExtras(ctx);
 
+  /** The signed-in user's organization as the session already knows it (no query). */
+  function sessionOrganizationOf(user: AuthUser) {
+    if (!user.organizationId || !user.organizationTimeZone || !user.organizationKind) throw notFound('Your organization');
+    return { id: user.organizationId, timeZone: user.organizationTimeZone, kind: user.organizationKind };
+  }
+
   async function organizationOf(user: AuthUser) {
     const org = user.organizationId ? await ctx.models.Organization.findByPk(user.organizationId) : null;
     if (!org) throw notFound('Your organization');
@@ -50,10 +56,17 @@ export function createDashboardService(ctx: AppContext) {
 
   return {
     async grower(user: AuthUser, season?: number): Promise<GrowerDashboard> {
-      const org = await organizationOf(user);
+      const org = sessionOrganizationOf(user);
       const clock = seasonClock(ctx.now(), org.timeZone, season);
       const w = { ...window(clock), farmId: org.id, season: clock.season };
-      const blockRows = await selectGrowerBlocks(db, w);
+      const [blockRows, sums, openAlerts, upcomingSprays, pestTraps, moneyOwed] = await Promise.all([
+        selectGrowerBlocks(db, w),
+        selectGrowerColonySums(db, w),
+        extras.openAlerts(org.id, 'farm'),
+        extras.upcomingSprays(org.id, clock),
+        extras.pestTraps(org.id),
+        extras.money(org.id, 'farm'),
+      ]);
       const blocks: GrowerBlockSummary[] = blockRows.map((r) => {
         const bloomWindow = r.bloom_start ? { bloomStart: r.bloom_start, fullBloom: r.full_bloom, petalFall: r.petal_fall! } : null;
         return {
@@ -63,13 +76,6 @@ export function createDashboardService(ctx: AppContext) {
           bloomWindow, bloomState: bloomState(clock.today, bloomWindow),
         };
       });
-      const sums = await selectGrowerColonySums(db, w);
-      const [openAlerts, upcomingSprays, pestTraps, moneyOwed] = await Promise.all([
-        extras.openAlerts(org.id, 'farm'),
-        extras.upcomingSprays(org.id, clock),
-        extras.pestTraps(org.id),
-        extras.money(org.id, 'farm'),
-      ]);
       return {
         season: clock.season,
         today: clock.today,
@@ -135,14 +141,17 @@ export function createDashboardService(ctx: AppContext) {
     },
 
     async timeline(user: AuthUser, season?: number): Promise<SeasonTimeline> {
-      const org = await organizationOf(user);
+      const org = sessionOrganizationOf(user);
       const clock = seasonClock(ctx.now(), org.timeZone, season);
       const w = { ...window(clock), orgId: org.id, season: clock.season, tz: org.timeZone };
       const blocks = await selectTimelineBlocks(db, org.kind, org.id);
       const ids = blocks.map((b) => b.id);
-      const bloom = await selectTimelineBloom(db, { season: clock.season, tz: org.timeZone, ids });
-      const placements = await selectTimelinePlacements(db, org.kind, { ...window(clock), orgId: org.id, ids });
-      const [sprays, alerts] = await Promise.all([extras.timelineSprays(ids, clock), extras.timelineAlerts(ids, org.id, org.kind, clock)]);
+      const [bloom, placements, sprays, alerts] = await Promise.all([
+        selectTimelineBloom(db, { season: clock.season, tz: org.timeZone, ids }),
+        selectTimelinePlacements(db, org.kind, { ...window(clock), orgId: org.id, ids }),
+        extras.timelineSprays(ids, clock),
+        extras.timelineAlerts(ids, org.id, org.kind, clock),
+      ]);
       const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
       const rows: TimelineRow[] = blocks.map((b) => {
         const items: TimelineItem[] = [
@@ -161,14 +170,13 @@ export function createDashboardService(ctx: AppContext) {
     },
 
     async map(user: AuthUser, season?: number): Promise<SeasonMap> {
-      const org = await organizationOf(user);
+      const org = sessionOrganizationOf(user);
       const clock = seasonClock(ctx.now(), org.timeZone, season);
-      const blocks = await selectMapBlocks(db, org.kind, { orgId: org.id, season: clock.season });
-      const sites = await selectMapDropSites(db, org.kind, { ...window(clock), orgId: org.id });
-      const yards =
-        org.kind === 'apiary'
-          ? await selectMapYards(db, org.id)
-          : [];
+      const [blocks, sites, yards] = await Promise.all([
+        selectMapBlocks(db, org.kind, { orgId: org.id, season: clock.season }),
+        selectMapDropSites(db, org.kind, { ...window(clock), orgId: org.id }),
+        org.kind === 'apiary' ? selectMapYards(db, org.id) : Promise.resolve([]),
+      ]);
       const buffers = await extras.sprayBuffers(blocks.map((b) => b.id), clock);
       const feature = (id: string, geometry: string, properties: SeasonMapFeature['properties']): SeasonMapFeature => ({
         type: 'Feature', id, geometry: JSON.parse(geometry) as SeasonMapFeature['geometry'], properties,
