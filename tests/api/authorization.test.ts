@@ -50,14 +50,29 @@ describe('authorization table', () => {
         return own.members[caller];
       },
     };
-    for (const caller of callers) clients.set(caller, await newClientFor(caller));
+    const signedIn = await Promise.all(callers.map((caller) => newClientFor(caller)));
+    callers.forEach((caller, i) => clients.set(caller, signedIn[i]));
     for (const { file, module } of rowFiles) fixturesByFile.set(file, module.setup ? await module.setup(world) : undefined);
-  });
+  }, 180_000);
   afterAll(async () => { await t?.stop(); });
 
-  async function send(row: AuthzRow<unknown>, caller: Caller, fixtures: unknown) {
+  /** A caller the row expects to succeed uses up what it acts on; refused callers use nothing up. */
+  const succeeds = (row: AuthzRow<unknown>, caller: Caller) => row.expect[caller] < 300;
+
+  /**
+   * Fresh fixtures: one set of its own for each caller the row expects to succeed, one set
+   * shared by the refused callers (a refused caller that wrongly succeeded would change its
+   * own status, and the row fails on it).
+   */
+  async function sharedFreshFor(row: AuthzRow<unknown>, fixtures: unknown) {
+    const refused = callers.find((caller) => !succeeds(row, caller));
+    return row.fresh && refused ? row.fresh({ world, fixtures, caller: refused }) : {};
+  }
+
+  async function send(row: AuthzRow<unknown>, caller: Caller, fixtures: unknown, sharedFresh: Record<string, string>) {
     const base = { world, fixtures, caller };
-    const ctx: RowContext<unknown> = { ...base, fresh: row.fresh ? await row.fresh(base) : {} };
+    const fresh = row.fresh && succeeds(row, caller) ? await row.fresh(base) : sharedFresh;
+    const ctx: RowContext<unknown> = { ...base, fresh };
     const client = row.ownClient ? await newClientFor(caller) : clients.get(caller)!;
     const path = typeof row.path === 'function' ? row.path(ctx) : row.path;
     const body = typeof row.body === 'function' ? row.body(ctx) : row.body;
@@ -76,8 +91,10 @@ describe('authorization table', () => {
     describe(file, () => {
       for (const row of module.rows) {
         it(`${row.method} ${typeof row.path === 'string' ? row.path : '(built path)'}: ${row.title}`, async () => {
-          // Callers are independent (each gets its own fresh fixtures), so they go at once.
-          const answers = await Promise.all(callers.map((caller) => send(row, caller, fixturesByFile.get(file))));
+          // Callers are independent (a caller that succeeds gets fresh fixtures of its own), so they go at once.
+          const fixtures = fixturesByFile.get(file);
+          const sharedFresh = await sharedFreshFor(row, fixtures);
+          const answers = await Promise.all(callers.map((caller) => send(row, caller, fixtures, sharedFresh)));
           const actual = Object.fromEntries(callers.map((caller, i) => [caller, answers[i].status])) as Record<Caller, number>;
           const unknownRoutes = callers.filter((_, i) => answers[i].unknownRoute);
           expect(unknownRoutes, 'the row names a route that does not exist').toEqual([]);

@@ -42,8 +42,9 @@ export interface AuthzRow<F = undefined> {
   /** The policy action guarding the route; the test checks rows and tables agree. Public routes leave it out. */
   policy?: { table: PolicyTableName; action: string };
   /**
-   * Makes new fixtures before each caller's request, for routes that use up what they act
-   * on (remove a member, accept an invitation). The ids or tokens reach path and body as ctx.fresh.
+   * Makes new fixtures for routes that use up what they act on (remove a member, accept an
+   * invitation): one set for each caller the row expects to succeed, one set shared by the
+   * callers it expects to be refused. The ids or tokens reach path and body as ctx.fresh.
    */
   fresh?: (ctx: Omit<RowContext<F>, 'fresh'>) => Promise<Record<string, string>>;
   /** Send with a newly signed-in client, for requests that change the caller's session (sign-in, sign-out, sign-up). */
