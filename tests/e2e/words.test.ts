@@ -71,6 +71,18 @@ describe('words on every page, for every demo role', () => {
     await page.locator('.pp-loading').first().waitFor({ state: 'detached', timeout: 8_000 }).catch(() => undefined);
   }
 
+  /**
+   * Follows a link inside the app, as a person does (no page reload), and waits for the
+   * page it leads to: the URL, then a heading the previous page did not have.
+   */
+  async function follow(page: Page, link: string, path: string) {
+    await page.evaluate(() => document.querySelectorAll('h1').forEach((h) => h.setAttribute('data-left', '')));
+    await page.locator(link).first().click();
+    await page.waitForURL((url) => url.pathname === path);
+    await expect.poll(() => page.locator('h1:not([data-left])').first().isVisible(), { timeout: 30_000 }).toBe(true);
+    await page.locator('.pp-loading').first().waitFor({ state: 'detached', timeout: 8_000 }).catch(() => undefined);
+  }
+
   async function check(page: Page, where: string, problems: string[]) {
     for (const found of await codeLikeText(page)) problems.push(`${where}: ${found}`);
   }
@@ -87,8 +99,7 @@ describe('words on every page, for every demo role', () => {
       const problems: string[] = [];
 
       for (const entry of entries) {
-        await page.goto(`${t.baseUrl}${entry.path}`);
-        await settled(page);
+        if (new URL(page.url()).pathname !== entry.path) await follow(page, `nav[aria-label="Main"] a[data-nav="${entry.name}"]`, entry.path);
         if (entry.name === 'season-timeline') await page.getByText('Timeline as a list').click();
         await check(page, entry.path, problems);
         const recordPath = firstRecord[entry.name];
@@ -96,16 +107,13 @@ describe('words on every page, for every demo role', () => {
           const hrefs = await page.locator('main a[href]').evaluateAll((links) => links.map((a) => new URL((a as HTMLAnchorElement).href).pathname));
           const record = hrefs.find((h) => recordPath.test(h));
           if (record) {
-            await page.goto(`${t.baseUrl}${record}`);
-            await settled(page);
+            await follow(page, `main a[href="${record}"]`, record);
             await check(page, record, problems);
           }
         }
       }
 
       // The preferences dialog, from the top bar's account menu.
-      await page.goto(`${t.baseUrl}/`);
-      await settled(page);
       await page.getByRole('button', { name: /^Account menu for / }).click();
       const preferences = page.getByRole('menuitem', { name: /preferences/i });
       if (await preferences.count()) await preferences.first().click();
