@@ -5,7 +5,7 @@ import { readFileSync } from 'node:fs';
 import { resolve, join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 
-const TARGET_KB = 250;
+const TARGET_KB = 200;
 const dist = resolve(process.argv[2] ?? 'dist/client');
 const html = readFileSync(join(dist, 'index.html'), 'utf8');
 
