@@ -89,7 +89,11 @@ export async function createApp(config: Config, options: { now?: () => Date } = 
   app.use('/api/webhooks', webhookRoutes(context));
   app.use(express.json({ limit: config.jsonBodyLimit }));
   app.use(cookieParser());
-  app.use(...sessionStack);
+  // Sessions on the API only. A rolling session cookie is sent again with every answer, so a
+  // static file asked with the session of before sign-in (the service worker precaches the
+  // whole app while the sign-in page is open) and answered after it would set that ended
+  // session back in the browser and sign the user straight out again.
+  app.use('/api', ...sessionStack);
   app.use('/api', csrf.protection);
   app.use('/api', apiRoutes(context, passport, csrf));
   app.use('/api', apiNotFound);
