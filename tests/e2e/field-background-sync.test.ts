@@ -1,5 +1,5 @@
 // Background Sync with no page open, in Debian's Chromium against the production build: a
-// drop-off recorded without signal waits in the phone's outbox; the page is closed; when
+// drop-off (and a photo) recorded without signal waits in the phone's outbox; the page is closed; when
 // the browser fires the outbox's sync event (dispatched here through the DevTools
 // protocol, `ServiceWorker.dispatchSyncEvent`, as the browser does once the signal
 // returns) the service worker sends the record itself and marks it as the page's outbox
@@ -15,6 +15,7 @@ import { buildSignedSeason } from '../support/builders/season.js';
 import { seedAccounts } from '../../seed/parts/accounts.seed.js';
 import type { SeedWorld } from '../../seed/seed-world.js';
 import { placementStateSet } from '../../shared/labels/placements.js';
+import { solidPng } from '../support/test-png.js';
 
 const poll = <T>(check: () => T | Promise<T>) => expect.poll(check, { timeout: 20_000, interval: 150 });
 
@@ -49,8 +50,8 @@ describe('field records sent by the service worker under Background Sync', () =>
 
   const rows = <T extends object>(sql: string, replacements: Record<string, unknown>) => t.context.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
 
-  /** Signs the crew member in, records a drop-off at the placement without signal, then closes the page. */
-  async function dropOffOfflineAndClose(placementId: string, colonies: number): Promise<BrowserContext> {
+  /** Signs the crew member in, records a drop-off (and a photo, if asked) at the placement without signal, then closes the page. */
+  async function dropOffOfflineAndClose(placementId: string, colonies: number, options: { photo?: boolean } = {}): Promise<BrowserContext> {
     const crew = await openWatchedPage(browser, { width: 412, height: 915, serviceWorkers: 'allow' });
     watched.push(crew);
     const { page, context } = crew;
@@ -61,9 +62,13 @@ describe('field records sent by the service worker under Background Sync', () =>
 
     await context.setOffline(true);
     await poll(() => page.evaluate(() => navigator.onLine)).toBe(false);
+    if (options.photo) {
+      await page.locator('#placement-photo').setInputFiles([{ name: 'pallets.png', mimeType: 'image/png', buffer: solidPng(640, 480, [82, 128, 61]) }]);
+      await poll(() => page.getByTestId('pending-photo').count()).toBe(1);
+    }
     await page.locator('#delivered-count').fill(String(colonies));
     await page.getByRole('button', { name: 'Mark dropped off' }).click();
-    await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe('1 record waiting to send');
+    await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe(options.photo ? '2 records waiting to send' : '1 record waiting to send');
     expect(crew.externalRequests).toEqual([]);
     await page.close();
     return context;
@@ -109,30 +114,39 @@ describe('field records sent by the service worker under Background Sync', () =>
     return blank;
   }
 
-  it('sends a drop-off with no page open, once, and the outbox shows it sent', async () => {
+  it('sends a drop-off and its photo with no page open, once each, and the outbox shows them sent', async () => {
     const id = placements.sent;
-    const context = await dropOffOfflineAndClose(id, 14);
-    const [waiting] = await outboxOf(context);
-    expect(waiting).toMatchObject({ kind: 'delivery', state: 'waiting', attempts: 0 });
+    const context = await dropOffOfflineAndClose(id, 14, { photo: true });
+    const waiting = await outboxOf(context);
+    // Recorded photo first, drop-off second; the step goes first all the same (as the page's outbox sends).
+    expect(waiting).toMatchObject([{ kind: 'photo', state: 'waiting', attempts: 0 }, { kind: 'delivery', state: 'waiting', attempts: 0 }]);
 
     await context.setOffline(false);
-    // Two sync events at once (the browser's own and ours may meet): the record goes once.
+    const answers: string[] = [];
+    context.on('response', (r) => { if (r.request().method() === 'POST' && r.request().serviceWorker()) answers.push(`${new URL(r.url()).pathname.split('/').pop()} ${r.status()}`); });
+    // Two sync events at once (the browser's own and ours may meet): each record goes once.
     const blank = await dispatchOutboxSync(context, 2);
-    await poll(async () => (await outboxOf(context))[0]?.state).toBe('sent');
-    const [sent] = await outboxOf(context);
-    expect(sent).toMatchObject({ key: waiting.key, state: 'sent', attempts: 1, error: null });
-    expect(sent.sentAt).toBeTruthy();
+    await poll(async () => (await outboxOf(context)).map((r) => r.state)).toEqual(['sent', 'sent']);
+    const sent = await outboxOf(context);
+    expect(sent).toMatchObject(waiting.map((r) => ({ key: r.key, state: 'sent', attempts: 1, error: null })));
+    expect(sent.every((r) => r.sentAt)).toBe(true);
+    // Each sync asks for a CSRF token and a new token replaces the one before, so a send may
+    // first be refused as csrf_invalid (403, before the route runs) and go again with a fresh one.
+    expect(answers.filter((a) => !a.endsWith(' 403'))).toEqual(['delivery 201', 'photos 201']);
 
     const [placement] = await rows<{ state: string; colonies_delivered: number; email: string }>(
       'SELECT p.state, p.colonies_delivered, u.email FROM placements p JOIN users u ON u.id = p.delivered_by WHERE p.id = :id', { id });
     expect(placement).toEqual({ state: 'delivered', colonies_delivered: 14, email: 'crew@apiary.test' });
     expect(await rows("SELECT id FROM hive_request_events WHERE action = 'placement-delivered' AND detail->>'placementId' = :id", { id })).toHaveLength(1);
-    expect(await rows('SELECT response_status FROM idempotency_keys WHERE key = :key', { key: waiting.key })).toEqual([{ response_status: 201 }]);
+    // The photo as the page sends it: shrunk to JPEG on the phone, for the drop-off step.
+    expect(await rows('SELECT content_type, step FROM placement_photos WHERE placement_id = :id', { id })).toEqual([{ content_type: 'image/jpeg', step: 'delivery' }]);
+    expect(await rows('SELECT response_status FROM idempotency_keys WHERE key IN (:keys) ORDER BY response_status', { keys: waiting.map((r) => r.key) }))
+      .toEqual([{ response_status: 201 }, { response_status: 201 }]);
 
     // Opened again, the page shows what the worker did.
     await blank.goto(`${t.baseUrl}/placements/${id}`);
     await poll(() => blank.getByTestId('outbox-waiting').textContent()).toBe('Everything recorded here is sent');
-    expect(await blank.locator('.pp-outbox-item[data-state="sent"]').count()).toBe(1);
+    expect(await blank.locator('.pp-outbox-item[data-state="sent"]').count()).toBe(2);
     await blank.close();
   });
 
