@@ -21,10 +21,14 @@ export interface AlertPublishJob {
   publicationId?: string;
 }
 
-export async function queueAlertPublication(ctx: AppContext, transaction: Transaction, alertId: string, event: AlertEventName): Promise<void> {
+/**
+ * `unseen`: the alert as this transaction leaves it, when nobody has seen it yet (raised or
+ * reopened); the committing process then sends it without reading it again.
+ */
+export async function queueAlertPublication(ctx: AppContext, transaction: Transaction, alertId: string, event: AlertEventName, unseen?: AlertDto): Promise<void> {
   const job: AlertPublishJob = { alertId, event, publicationId: randomUUID() };
   await ctx.jobs.send<AlertPublishJob>(queueNames.alertPublish, job, { transaction: { sequelize: ctx.sequelize, transaction } });
-  transaction.afterCommit(() => publishOnCommit(ctx, job));
+  transaction.afterCommit(() => publishOnCommit(ctx, job, unseen));
 }
 
 /** One e-mail job per person to tell (see alert-emails.ts), in the caller's transaction. */

@@ -72,10 +72,11 @@ export async function recheckSprayIn(ctx: AppContext, transaction: Transaction, 
   }
 
   for (const change of changes) {
-    await queueAlertPublication(ctx, transaction, change.alertId, change.kind === 'raised' ? 'alert:raised' : 'alert:updated');
-    if (change.kind !== 'raised') continue;
-    const [dto] = await loadAlertDtos(ctx, spray.farmId, { ids: [change.alertId] }, transaction);
-    if (dto) await queueAlertEmails(ctx, transaction, dto);
+    // A raised (or reopened) alert is seen by nobody yet, so its one view serves the farm and
+    // the apiary business alike: published on commit as loaded here, and e-mailed.
+    const [raised] = change.kind === 'raised' ? await loadAlertDtos(ctx, spray.farmId, { ids: [change.alertId] }, transaction) : [];
+    await queueAlertPublication(ctx, transaction, change.alertId, change.kind === 'raised' ? 'alert:raised' : 'alert:updated', raised);
+    if (raised) await queueAlertEmails(ctx, transaction, raised);
   }
   return { spray, check, changes };
 }
