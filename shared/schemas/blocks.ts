@@ -69,7 +69,8 @@ export interface BloomWindowDto {
   fullBloom: string | null;
   petalFall: string;
   confidenceNote: string | null;
-  revisedBy: { id: string; name: string } | null;
+  /** Who revised it, by name only: the window is shown to the apiary businesses that follow the block. */
+  revisedBy: { name: string } | null;
   createdAt: string;
 }
 

@@ -14,7 +14,7 @@ export function toBloomWindowDto(w: BloomWindow): BloomWindowDto {
   return {
     id: w.id, blockId: w.blockId, season: w.season, bloomStart: w.bloomStart, fullBloom: w.fullBloom,
     petalFall: w.petalFall, confidenceNote: w.confidenceNote,
-    revisedBy: w.revisedBy ? { id: w.revisedBy, name: w.reviser?.name ?? '' } : null,
+    revisedBy: w.revisedBy ? { name: w.reviser?.name ?? '' } : null,
     createdAt: w.createdAt.toISOString(),
   };
 }
