@@ -8,7 +8,8 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
-import { agreementMadeAt, buildMarket, requestPayload } from '../support/builders/requests.js';
+import { buildMarket } from '../support/builders/requests.js';
+import { scheduledPlacementThroughApi } from '../support/field-placement-api.js';
 
 describe('Idempotency-Key on the field steps', () => {
   let t: TestApp;
@@ -24,16 +25,8 @@ describe('Idempotency-Key on the field steps', () => {
   });
   afterAll(async () => { await t?.stop(); });
 
-  async function scheduledPlacementId(colonies = 20): Promise<string> {
-    const r = (await grower.post('/api/requests', requestPayload(m.block.id, {}, m)).expect(201)).body.request;
-    await grower.post(`/api/requests/${r.id}/publish`).expect(200);
-    const c = (await keeper.post(`/api/requests/${r.id}/commitments`, { colonies }).expect(201)).body.commitment;
-    await grower.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
-    await keeper.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
-    // Made a week ago, so the phone's records from hours ago are not before the agreement.
-    await agreementMadeAt({ id: c.agreementId }, new Date(Date.now() - 7 * 86_400_000));
-    return (await crew.get(`/api/placements?agreementId=${c.agreementId}`).expect(200)).body.placements[0].id;
-  }
+  // Made a week ago, so the phone's records from hours ago are not before the agreement.
+  const scheduledPlacementId = (colonies = 20) => scheduledPlacementThroughApi({ grower, keeper, crew }, m, colonies, new Date(Date.now() - 7 * 86_400_000));
 
   const count = async (sql: string, id: string) =>
     Number((await t.context.sequelize.query<{ n: string }>(sql, { replacements: { id }, type: QueryTypes.SELECT }))[0].n);

@@ -8,7 +8,8 @@ import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
-import { agreementMadeAt, buildMarket, requestPayload } from '../support/builders/requests.js';
+import { buildMarket } from '../support/builders/requests.js';
+import { scheduledPlacementThroughApi } from '../support/field-placement-api.js';
 
 const HOUR = 3_600_000;
 const DAY = 24 * HOUR;
@@ -29,15 +30,7 @@ describe('recorded times on the field steps', () => {
   afterAll(async () => { await t?.stop(); });
 
   /** A scheduled placement whose agreement was made two days ago. */
-  async function placementAgreedTwoDaysAgo(colonies = 10): Promise<string> {
-    const r = (await grower.post('/api/requests', requestPayload(m.block.id, {}, m)).expect(201)).body.request;
-    await grower.post(`/api/requests/${r.id}/publish`).expect(200);
-    const c = (await keeper.post(`/api/requests/${r.id}/commitments`, { colonies }).expect(201)).body.commitment;
-    await grower.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
-    await keeper.post(`/api/agreements/${c.agreementId}/confirm`).expect(200);
-    await agreementMadeAt({ id: c.agreementId }, new Date(Date.now() - 2 * DAY));
-    return (await crew.get(`/api/placements?agreementId=${c.agreementId}`).expect(200)).body.placements[0].id;
-  }
+  const placementAgreedTwoDaysAgo = (colonies = 10) => scheduledPlacementThroughApi({ grower, keeper, crew }, m, colonies, new Date(Date.now() - 2 * DAY));
 
   const photo = (id: string, recordedAt: string) => crew.agent.post(`/api/placements/${id}/photos`).set('X-CSRF-Token', crew.csrfToken).set('Idempotency-Key', randomUUID())
     .field('step', 'delivery').field('recordedAt', recordedAt).attach('photo', png, { filename: 'drop.png', contentType: 'image/png' });

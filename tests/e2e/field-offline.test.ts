@@ -4,30 +4,14 @@
 // and the records survive, from the service worker and the phone's outbox), and when the
 // connection returns the records are sent once each; the grower then sees them.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import { deflateSync, crc32 } from 'node:zlib';
 import { QueryTypes } from 'sequelize';
 import type { Browser } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
 import { buildScheduledFieldPlacement } from '../support/field-placement.js';
+import { solidPng } from '../support/test-png.js';
 
 const poll = <T>(check: () => T | Promise<T>) => expect.poll(check, { timeout: 20_000, interval: 150 });
-
-/** A real PNG of the given size (a camera-sized picture the phone must shrink), built by hand. */
-function png(width: number, height: number, rgb: [number, number, number]): Buffer {
-  const chunk = (type: string, data: Buffer) => {
-    const length = Buffer.alloc(4); length.writeUInt32BE(data.length);
-    const body = Buffer.concat([Buffer.from(type, 'ascii'), data]);
-    const crc = Buffer.alloc(4); crc.writeUInt32BE(crc32(body));
-    return Buffer.concat([length, body, crc]);
-  };
-  const header = Buffer.alloc(13);
-  header.writeUInt32BE(width, 0); header.writeUInt32BE(height, 4); header[8] = 8; header[9] = 2; // 8-bit RGB
-  const row = Buffer.alloc(1 + width * 3);
-  for (let x = 0; x < width; x++) row.set(rgb, 1 + x * 3);
-  const pixels = Buffer.concat(Array.from({ length: height }, () => row));
-  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', header), chunk('IDAT', deflateSync(pixels)), chunk('IEND', Buffer.alloc(0))]);
-}
 
 /** Width and height from a JPEG's frame header (SOF0 or SOF2). */
 function jpegSize(data: Buffer): { width: number; height: number } | null {
@@ -82,8 +66,8 @@ describe('field pages without signal', () => {
 
     // Photos at the drop-off (camera-sized; the phone shrinks them), then the drop-off with the position.
     await page.locator('#placement-photo').setInputFiles([
-      { name: 'pallets.png', mimeType: 'image/png', buffer: png(2400, 1800, [82, 128, 61]) },
-      { name: 'gate.png', mimeType: 'image/png', buffer: png(1800, 2400, [199, 125, 18]) },
+      { name: 'pallets.png', mimeType: 'image/png', buffer: solidPng(2400, 1800, [82, 128, 61]) },
+      { name: 'gate.png', mimeType: 'image/png', buffer: solidPng(1800, 2400, [199, 125, 18]) },
     ]);
     await poll(() => page.getByTestId('pending-photo').count()).toBe(2);
     await page.getByRole('button', { name: 'Use my position' }).click();
