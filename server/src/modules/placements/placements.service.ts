@@ -243,7 +243,7 @@ export function createPlacementsService(ctx: AppContext) {
         if (at) await refuseBeforeAgreement(ctx, t, p.agreement!, at, 'recordedAt', 'photo');
         await ctx.models.PlacementPhoto.create({
           placementId: id, step, contentType: type, byteSize: file.size, data: file.buffer, uploadedBy: user.id, createdAt: ctx.now(),
-          recordedAt: recordedAt ? new Date(recordedAt) : null,
+          recordedAt: at,
         }, { transaction: t });
       });
       const row = await findOwn(user, id);
