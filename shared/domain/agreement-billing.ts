@@ -5,7 +5,8 @@
 //   least the minimum frames of bees (the frames its weak colonies lack are made up by its
 //   strong ones; Rutgers NJ recommendations, TRADE.md §2). Only a group that does not meet
 //   it is paid at the reduced rate, for its estimated share of colonies below the minimum
-//   (the sampled share applied to the group, half up, never more than were delivered).
+//   (the sampled share applied to the group, half up, never more than were delivered);
+//   at a reduced rate of 0 those colonies are not charged, and the clause says so.
 // - Extra moves: a fee per move the grower asks for, whatever the number of colonies moved.
 // - Deposit: due on the later of the first delivery day and the invoice's issue date plus
 //   the agreement's payment days, so an invoice is never overdue on the day it is issued.
@@ -37,7 +38,7 @@ export function shortfallClauseText(t: { minFramesOfBees: number; belowMinimumRa
   return `A checked group whose sample averages at least ${t.minFramesOfBees} frames of bees meets the agreed strength and is paid in full, `
     + `even if some colonies in it are below ${t.minFramesOfBees} frames. A group whose sample averages fewer than ${t.minFramesOfBees} frames of bees does not: `
     + `the share of its sampled colonies below ${t.minFramesOfBees} frames, applied to the colonies in the group and rounded to the nearest colony, `
-    + `is paid at ${percent(t.belowMinimumRateBp)} of the fee.`;
+    + (t.belowMinimumRateBp > 0 ? `is paid at ${percent(t.belowMinimumRateBp)} of the fee.` : 'is not charged.');
 }
 
 export function extraMovesAmountCents(moves: number, feeCents: number): number {

@@ -82,12 +82,12 @@ export function agreementClauses(t: ClauseTerms): AgreementClause[] {
       text: 'Once both sides have confirmed this agreement it is fixed. Any change is made by an amendment that both sides confirm.',
     },
   ];
-  if (t.belowMinimumRateBp > 0) {
-    clauses.splice(3, 0, {
-      key: 'below-minimum',
-      title: 'Colonies below strength',
-      text: shortfallClauseText(t),
-    });
-  }
+  // Always stated, a reduced rate of 0 included: the invoice applies this rule to every
+  // checked group, so the agreement must say what a group that falls short is charged.
+  clauses.splice(3, 0, {
+    key: 'below-minimum',
+    title: 'Colonies below strength',
+    text: shortfallClauseText(t),
+  });
   return clauses;
 }

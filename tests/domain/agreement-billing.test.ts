@@ -18,8 +18,8 @@ const delivered = new Date('2027-04-10T15:00:00Z'); // 08:00 PDT on 10 April
 /** Reads the strength terms back out of the clause text, so the test prices what the agreement says. */
 function termsFromShortfallClause(text: string) {
   const minimum = Number(/averages fewer than (\d+(?:\.\d+)?) frames of bees does not/.exec(text)![1]);
-  const ratePercent = Number(/is paid at (\d+(?:\.\d+)?)% of the fee/.exec(text)![1]);
-  return { minFramesOfBees: minimum, belowMinimumRateBp: ratePercent * 100 };
+  const rate = /is paid at (\d+(?:\.\d+)?)% of the fee|is not charged/.exec(text)!;
+  return { minFramesOfBees: minimum, belowMinimumRateBp: rate[1] === undefined ? 0 : Number(rate[1]) * 100 };
 }
 
 const price = (framesOfBees: number[], extraMoves = 0, issuedAt: Date | null = null) => priceInvoice({
@@ -47,6 +47,28 @@ describe('strength shortfall: the clause and the invoice', () => {
     expect(priced.lines.map((l) => [l.kind, l.quantity, l.unitCents])).toEqual([['colonies-full-rate', 20, 6500], ['colonies-below-minimum', 20, 3250]]);
     // Exactly at the minimum on average passes (common practice, no source: "at least" includes the value).
     expect(coloniesAtReducedRate({ coloniesInGroup: 40, framesOfBees: [5, 7] }, 6, 40)).toBe(0);
+  });
+});
+
+describe('strength shortfall at a reduced rate of 0: the clause and the invoice', () => {
+  // The request form's default rate for colonies below the minimum is 0: the invoice then charges a failing
+  // group's short share nothing, so the agreement states that too (common practice, no source: the clause
+  // says what the invoice does, worked from the same Rutgers NJ group rule as above).
+  const free = { ...terms, belowMinimumRateBp: 0 };
+  const text = agreementClauses(free).find((c) => c.key === 'below-minimum')?.text ?? '';
+
+  it('keeps the shortfall clause and says short colonies of a failing group are not charged', () => {
+    expect(text).toMatch(/averages fewer than 6 frames of bees does not: .* is not charged\.$/);
+  });
+
+  it('prices the clause\'s own wording: [4, 4, 6, 8] fails, 20 of 40 colonies charged nothing', () => {
+    // 22 frames / 4 = 5.5 < 6, fails; 2 of 4 below 6 -> 2/4 x 40 = 20 colonies not charged; 20 x $65.00 = $1,300.00.
+    const priced = priceInvoice({
+      terms: { ...free, ...termsFromShortfallClause(text) }, taxRateBp: 0, timeZone: zone, extraMoves: 0,
+      placements: [{ placementId: 'p', coloniesDelivered: 40, deliveredAt: delivered, pickedUpAt: null, strengthCheck: { coloniesInGroup: 40, framesOfBees: [4, 4, 6, 8] } }],
+    });
+    expect(priced.lines.map((l) => [l.kind, l.quantity, l.unitCents])).toEqual([['colonies-full-rate', 20, 6500], ['colonies-below-minimum', 20, 0]]);
+    expect(priced.totalCents).toBe(130_000);
   });
 });
 
