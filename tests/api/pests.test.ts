@@ -64,6 +64,8 @@ describe('GET /api/pests/timing', () => {
   });
 
   it('suggests cover-spray days from first to 20% egg hatch, marked against bloom and colonies on site, with the caution', async () => {
+    // Source: MSU Enviroweather codling moth model: first egg hatch (250 DD°F) to 20% egg hatch (350 DD°F) after the
+    // biofix, the span sprays against hatching larvae are timed in (from memory of its spray-timing guidance).
     const { suggestedSprayDays, sprayWindowCaution } = await timingOf();
     expect(suggestedSprayDays.map((d) => d.day)).toEqual(['2027-05-18', '2027-05-19', '2027-05-20', '2027-05-21', '2027-05-22', '2027-05-23']);
     // Bloom 10–22 May; colonies on site 12–23 May (local days); days after 20 May rest on estimated temperatures.
