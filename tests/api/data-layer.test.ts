@@ -43,6 +43,23 @@ function migrationTables(): string[] {
   return [...tables].sort();
 }
 
+/** Every foreign key column the migrations declare (`column … REFERENCES table`), with the table it points at. */
+function migrationForeignKeys(): Array<{ table: string; column: string; references: string }> {
+  const keys: Array<{ table: string; column: string; references: string }> = [];
+  for (const file of filesUnder(migrationsDir)) {
+    const text = readFileSync(file, 'utf8');
+    for (const m of text.matchAll(/\bCREATE\s+TABLE\s+(?:IF\s+NOT\s+EXISTS\s+)?"?([a-z_][a-z0-9_]*)"?\s*\(([\s\S]*?)\n\s*\);/gi)) {
+      for (const r of m[2].matchAll(/^\s*([a-z_][a-z0-9_]*)\s[^\n]*?\bREFERENCES\s+([a-z_][a-z0-9_]*)/gim)) keys.push({ table: m[1], column: r[1], references: r[2] });
+    }
+    for (const m of text.matchAll(/\bALTER\s+TABLE\s+([a-z_][a-z0-9_]*)([^;]*);/gi)) {
+      for (const r of m[2].matchAll(/\bADD\s+COLUMN\s+([a-z_][a-z0-9_]*)[^,;]*?\bREFERENCES\s+([a-z_][a-z0-9_]*)/gi)) keys.push({ table: m[1], column: r[1], references: r[2] });
+    }
+  }
+  return keys;
+}
+
+const camelCase = (column: string) => column.replace(/_([a-z0-9])/g, (_, c: string) => c.toUpperCase());
+
 // Defining models does not connect; the URL is never dialled.
 const models = defineModels(new Sequelize('postgres://nobody@127.0.0.1:9/none', { dialect: 'postgres', logging: false }));
 const modelTables = new Map(Object.entries(models).map(([name, model]) => [String(model.getTableName()), name]));
@@ -144,6 +161,20 @@ describe('the data layer', () => {
   it('has no model for a table the migrations do not create', () => {
     const orphans = [...modelTables.keys()].filter((t) => !appTables.includes(t));
     expect(orphans).toEqual([]);
+  });
+
+  it('declares every foreign key of the migrations as a belongsTo association to the table it references', () => {
+    const keys = migrationForeignKeys().filter((k) => !LIBRARY_TABLES.includes(k.table));
+    // The migrations have had dozens of foreign keys since the first ones (the check sees them at all).
+    expect(keys.length).toBeGreaterThan(50);
+    expect(keys).toContainEqual({ table: 'invoices', column: 'agreement_id', references: 'agreements' });
+    const missing = keys.filter(({ table, column, references }) => {
+      const name = modelTables.get(table);
+      if (!name) return false; // reported by the tableName check above
+      return !Object.values(models[name as keyof typeof models].associations).some((a) =>
+        a.associationType === 'BelongsTo' && a.foreignKey === camelCase(column) && a.target.getTableName() === references);
+    }).map((k) => `${k.table}.${k.column} -> ${k.references}`);
+    expect(missing, 'foreign keys with no belongsTo in server/src/db/associations.ts').toEqual([]);
   });
 
   it('uses every model in at least one feature module (ctx.models.X, or taken from the registry)', () => {

@@ -9,6 +9,7 @@ export function associateModels(m: Models) {
   m.Organization.hasMany(m.Invitation, { foreignKey: 'organizationId', as: 'invitations' });
   m.Invitation.belongsTo(m.User, { foreignKey: 'invitedBy', as: 'inviter' });
   m.PasswordResetToken.belongsTo(m.User, { foreignKey: 'userId', as: 'user' });
+  m.IdempotencyKey.belongsTo(m.User, { foreignKey: 'userId', as: 'user' });
 
   // blocks, weather, bloom windows, reference thresholds and pests
   m.Block.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
@@ -55,13 +56,16 @@ export function associateModels(m: Models) {
   m.AlertView.belongsTo(m.Organization, { foreignKey: 'organizationId', as: 'organization' });
   m.AlertView.belongsTo(m.User, { foreignKey: 'seenBy', as: 'seer' });
 
-  // invoices and payments (the agreement and placement ends are declared with those models)
+  // invoices and payments
+  m.Invoice.belongsTo(m.Agreement, { foreignKey: 'agreementId', as: 'agreement' });
+  m.Agreement.hasMany(m.Invoice, { foreignKey: 'agreementId', as: 'invoices' });
   m.Invoice.belongsTo(m.Organization, { foreignKey: 'apiaryId', as: 'apiary' });
   m.Invoice.belongsTo(m.Organization, { foreignKey: 'farmId', as: 'farm' });
   m.Invoice.belongsTo(m.User, { foreignKey: 'issuedBy', as: 'issuer' });
   m.Invoice.belongsTo(m.User, { foreignKey: 'createdBy', as: 'creator' });
   m.Invoice.hasMany(m.InvoiceLine, { foreignKey: 'invoiceId', as: 'lines' });
   m.InvoiceLine.belongsTo(m.Invoice, { foreignKey: 'invoiceId', as: 'invoice' });
+  m.InvoiceLine.belongsTo(m.Placement, { foreignKey: 'placementId', as: 'placement' });
   m.Invoice.hasMany(m.CreditNote, { foreignKey: 'invoiceId', as: 'creditNotes' });
   m.CreditNote.belongsTo(m.Invoice, { foreignKey: 'invoiceId', as: 'invoice' });
   m.CreditNote.belongsTo(m.Organization, { foreignKey: 'apiaryId', as: 'apiary' });
