@@ -60,11 +60,11 @@ async function addSeasons(seq: Sequelize, from: number, to: number, copies = 1) 
 
 interface Spray { farmId: string; blockId: string; from: Date; ms: number }
 
-/** The plan of the exposure search for one spray, as PostgreSQL ran it. */
+/** The plan of the conflict search for one spray, as PostgreSQL ran it. */
 async function explain(seq: Sequelize, spray: Spray) {
-  const { exposureSqlForExplain, searchBind } = await import('../../server/src/modules/conflicts/conflicts.queries.js');
+  const { conflictSearchSqlForExplain, searchBind } = await import('../../server/src/modules/conflicts/conflicts.queries.js');
   const bind = searchBind({ farmId: spray.farmId, blockIds: [spray.blockId], from: spray.from, to: new Date(spray.from.getTime() + 3 * 3_600_000), exposureTo: new Date(spray.from.getTime() + 27 * 3_600_000), bufferM: 1609.344 });
-  const plan = await seq.query<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS) ${exposureSqlForExplain}`, { bind, type: QueryTypes.SELECT });
+  const plan = await seq.query<{ 'QUERY PLAN': string }>(`EXPLAIN (ANALYZE, BUFFERS) ${conflictSearchSqlForExplain}`, { bind, type: QueryTypes.SELECT });
   return plan.map((r) => `    ${r['QUERY PLAN']}`).join('\n');
 }
 
@@ -133,9 +133,9 @@ async function main() {
     console.log(`  p95 <= 10 ms at 100,000 placements this season (1,000,000 rows): ${fmt(base.p95)}, ${base.p95 <= 10 ? 'met' : 'NOT MET'}`);
     console.log(`  p95 at 10x density <= 1.5x p95 at 1x: x${ratio.toFixed(2)}, ${ratio <= 1.5 ? 'met' : 'NOT MET'}`);
     const slowest = dense.slowest.ms > base.slowest.ms ? dense.slowest : base.slowest;
-    console.log(`plan of the exposure search for the slowest spray at 1x (${fmt(base.slowest.ms)}):`);
+    console.log(`plan of the conflict search for the slowest spray at 1x (${fmt(base.slowest.ms)}):`);
     console.log(basePlan);
-    console.log(`plan of the exposure search for the slowest spray overall (${fmt(slowest.ms)}):`);
+    console.log(`plan of the conflict search for the slowest spray overall (${fmt(slowest.ms)}):`);
     console.log(await explain(seq, slowest));
   } finally {
     await seq.close();

@@ -95,6 +95,12 @@ describe('live conflict alerts', () => {
     expect(growerAlert.alert).toMatchObject({ grade: 'label-bar', state: 'raised', apiary: { id: apiaryId }, spray: { id: created.spray.id } });
     expect(keeperAlert.alert.id).toBe(growerAlert.alert.id);
     expect(keeperAlert.alert.cautions.join(' ')).toMatch(/licensed applicator/);
+    // The live alert, built by the save from what its check holds, is the alert as each side reads it.
+    const read = async (s: Session) => (await s.agent.get(`/api/alerts/${growerAlert.alert.id}`).expect(200)).body;
+    const [asGrowerReads, asKeeperReads] = [await read(grower), await read(keeper)];
+    expect(growerAlert.alert).toEqual(asGrowerReads.alert);
+    expect(keeperAlert.alert).toEqual(asKeeperReads.alert);
+    expect(growerAlert.alert.history).toEqual([expect.objectContaining({ action: 'raised', actorName: null, note: null })]);
 
     await grower.agent.patch(`/api/sprays/${created.spray.id}`).set('X-CSRF-Token', grower.csrf).send({ blockIds: [farBlockId] }).expect(200);
     const resolvedForKeeper = await eventually(() => kEvents.find((e) => e.event === 'alert:updated' && e.alert.state === 'resolved'));

@@ -4,6 +4,9 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { Alert } from '../../db/models/alert.model.js';
+import type { AlertEvent } from '../../db/models/alert-event.model.js';
+import type { SprayPlan } from '../../db/models/spray-plan.model.js';
+import type { SprayState } from '../../../../shared/schemas/sprays.js';
 import { sprayCautions } from '../../../../shared/domain/conflict-grading.js';
 import type { AlertDto, AlertEventDto } from '../../../../shared/schemas/alerts.js';
 
@@ -52,37 +55,57 @@ export async function loadAlertDtos(ctx: AppContext, viewerOrgId: string, filter
   for (const l of links) blockNames.set(l.sprayPlanId, [...(blockNames.get(l.sprayPlanId) ?? []), l.block!.name]);
   const history = new Map<string, AlertEventDto[]>();
   for (const e of events) {
-    history.set(e.alertId, [...(history.get(e.alertId) ?? []), {
-      id: String(e.id), action: e.action, actorName: e.actor?.name ?? null, organizationName: e.organization?.name ?? null,
-      response: e.response as AlertEventDto['response'], note: e.note, at: iso(e.createdAt),
-    }]);
+    history.set(e.alertId, [...(history.get(e.alertId) ?? []), alertEventDtoOf(e)]);
   }
 
-  return alerts.map((a) => {
-    const spray = a.spray!;
-    return {
-      id: a.id,
-      revision: Number(a.revision),
-      state: a.state,
-      grade: a.grade,
-      grades: a.grades,
-      reasons: a.reasons,
-      cautions: [...sprayCautions],
-      farm: { id: a.farm!.id, name: a.farm!.name, timeZone: a.farm!.timeZone },
-      apiary: a.apiary ? { id: a.apiary.id, name: a.apiary.name } : null,
-      spray: {
-        id: spray.id, state: spray.state, productName: spray.productName, epaRegNo: spray.epaRegNo,
-        startsAt: iso(spray.plannedWindow[0].value), endsAt: iso(spray.plannedWindow[1].value),
-        blockNames: (blockNames.get(spray.id) ?? []).sort((x, y) => (x < y ? -1 : x > y ? 1 : 0)),
-      },
-      findings: a.findings,
-      seenByMe: seen.has(a.id),
-      raisedAt: iso(a.raisedAt),
-      resolvedAt: a.resolvedAt ? iso(a.resolvedAt) : null,
-      updatedAt: iso(a.updatedAt),
-      history: history.get(a.id) ?? [],
-    };
-  });
+  return alerts.map((a) => alertDtoOf(a, {
+    farm: a.farm!, apiary: a.apiary ?? null, spray: a.spray!, blockNames: blockNames.get(a.sprayPlanId) ?? [],
+    seenByMe: seen.has(a.id), history: history.get(a.id) ?? [],
+  }));
+}
+
+export interface AlertParts {
+  farm: { id: string; name: string; timeZone: string };
+  apiary: { id: string; name: string } | null;
+  spray: { id: string; state: SprayState; productName: string; epaRegNo: string | null; plannedWindow: SprayPlan['plannedWindow'] };
+  blockNames: string[];
+  seenByMe: boolean;
+  history: AlertEventDto[];
+}
+
+/** One alert as its DTO, from its row and the parts around it. */
+export function alertDtoOf(a: Alert, parts: AlertParts): AlertDto {
+  const { spray } = parts;
+  return {
+    id: a.id,
+    revision: Number(a.revision),
+    state: a.state,
+    grade: a.grade,
+    grades: a.grades,
+    reasons: a.reasons,
+    cautions: [...sprayCautions],
+    farm: { id: parts.farm.id, name: parts.farm.name, timeZone: parts.farm.timeZone },
+    apiary: parts.apiary ? { id: parts.apiary.id, name: parts.apiary.name } : null,
+    spray: {
+      id: spray.id, state: spray.state, productName: spray.productName, epaRegNo: spray.epaRegNo,
+      startsAt: iso(spray.plannedWindow[0].value), endsAt: iso(spray.plannedWindow[1].value),
+      blockNames: [...parts.blockNames].sort((x, y) => (x < y ? -1 : x > y ? 1 : 0)),
+    },
+    findings: a.findings,
+    seenByMe: parts.seenByMe,
+    raisedAt: iso(a.raisedAt),
+    resolvedAt: a.resolvedAt ? iso(a.resolvedAt) : null,
+    updatedAt: iso(a.updatedAt),
+    history: parts.history,
+  };
+}
+
+/** A history step as its DTO. */
+export function alertEventDtoOf(e: AlertEvent): AlertEventDto {
+  return {
+    id: String(e.id), action: e.action, actorName: e.actor?.name ?? null, organizationName: e.organization?.name ?? null,
+    response: (e.response ?? null) as AlertEventDto['response'], note: e.note ?? null, at: iso(e.createdAt),
+  };
 }
 
 /** The organizations an alert concerns: its farm, and the apiary business it names. */

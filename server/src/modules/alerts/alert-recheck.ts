@@ -10,11 +10,12 @@ import { checkStoredSpray, loadStoredSpray, type StoredSpray } from '../conflict
 import type { CheckOutput } from '../conflicts/conflict-check.js';
 import type { Alert } from '../../db/models/alert.model.js';
 import type { SprayConflict } from '../../../../shared/schemas/sprays.js';
-import type { AlertAction, AlertFinding } from '../../../../shared/schemas/alerts.js';
-import { loadAlertDtos } from './alert-dtos.js';
+import type { AlertAction, AlertDto, AlertFinding } from '../../../../shared/schemas/alerts.js';
+import { alertDtoOf, alertEventDtoOf, loadAlertDtos } from './alert-dtos.js';
 import { queueAlertEmails, queueAlertPublication } from './alert-outbox.js';
 
-export type AlertChange = { alertId: string; kind: 'raised' | 'updated' };
+/** `unseen`: a newly raised alert as this transaction leaves it (nobody has seen it yet). */
+export type AlertChange = { alertId: string; kind: 'raised' | 'updated'; unseen?: AlertDto };
 
 export interface RecheckResult {
   spray: StoredSpray | null;
@@ -51,8 +52,13 @@ export async function recheckSprayIn(ctx: AppContext, transaction: Transaction, 
     byKey.delete(keyOf(conflict.apiaryId));
     if (!current) {
       const alert = await Alert.create({ ...values, sprayPlanId: sprayId, farmId: spray.farmId, apiaryId: conflict.apiaryId, raisedAt: now, resolvedAt: null, createdAt: now, updatedAt: now }, { transaction, silent: true });
-      await event(alert.id, 'raised', { grade: conflict.grade });
-      changes.push({ alertId: alert.id, kind: 'raised' });
+      const raised = await event(alert.id, 'raised', { grade: conflict.grade });
+      const unseen = alertDtoOf(alert, {
+        farm: spray.farm, apiary: conflict.apiaryId ? { id: conflict.apiaryId, name: conflict.apiaryName! } : null,
+        spray: { id: spray.id, state: spray.state, productName: spray.productName, epaRegNo: spray.epaRegNo, plannedWindow: [{ value: spray.startsAt, inclusive: true }, { value: spray.endsAt, inclusive: false }] },
+        blockNames: check.blocks.map((b) => b.name), seenByMe: false, history: [alertEventDtoOf(raised)],
+      });
+      changes.push({ alertId: alert.id, kind: 'raised', unseen });
     } else if (current.state === 'resolved') {
       await Alert.update({ ...values, state: 'raised', raisedAt: now, resolvedAt: null, revision: nextRevision, updatedAt: now }, { where: { id: current.id }, transaction, silent: true });
       await AlertView.destroy({ where: { alertId: current.id }, transaction });
@@ -73,8 +79,9 @@ export async function recheckSprayIn(ctx: AppContext, transaction: Transaction, 
 
   for (const change of changes) {
     // A raised (or reopened) alert is seen by nobody yet, so its one view serves the farm and
-    // the apiary business alike: published on commit as loaded here, and e-mailed.
-    const [raised] = change.kind === 'raised' ? await loadAlertDtos(ctx, spray.farmId, { ids: [change.alertId] }, transaction) : [];
+    // the apiary business alike: published on commit as built or loaded here, and e-mailed.
+    // A new one is built from what this check holds; a reopened one is loaded with its history.
+    const [raised] = change.unseen ? [change.unseen] : change.kind === 'raised' ? await loadAlertDtos(ctx, spray.farmId, { ids: [change.alertId] }, transaction) : [];
     await queueAlertPublication(ctx, transaction, change.alertId, change.kind === 'raised' ? 'alert:raised' : 'alert:updated', raised);
     if (raised) await queueAlertEmails(ctx, transaction, raised);
   }

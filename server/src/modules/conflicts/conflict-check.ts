@@ -1,13 +1,13 @@
 // The conflict check of one spray: runs the database search, groups what it found by
 // apiary business and grades each group with the shared rules. The dry run and the
-// stored alerts use this same function; inside a transaction every query runs on its
-// connection, one after another.
+// stored alerts use this same function; the search is one statement, on the caller's
+// transaction's connection when there is one.
 import type { Sequelize, Transaction } from 'sequelize';
 import { productBeeHazard } from '../../../../shared/domain/bee-toxicity.js';
 import { gradeConflict, compareGrades, sprayCautions } from '../../../../shared/domain/conflict-grading.js';
 import { hoursDuringBeeFlight } from '../../../../shared/domain/bee-flight.js';
 import type { ConflictColonies, SprayCheckResult, SprayConflict } from '../../../../shared/schemas/sprays.js';
-import { searchBloom, searchExposures, sprayedBlocks, type ExposureRow, type SprayedBlockRow } from './conflicts.queries.js';
+import { searchConflicts, type ExposureRow, type SprayedBlockRow } from './conflicts.queries.js';
 
 const HOUR_MS = 3_600_000;
 
@@ -50,9 +50,7 @@ export async function runConflictCheck(sequelize: Sequelize, input: CheckInput, 
   const hazard = productBeeHazard({ ld50UgPerBee: input.ld50UgPerBee, rt25Hours: input.rt25Hours });
   const exposureTo = new Date(input.to.getTime() + hazard.residualHours * HOUR_MS);
   const scope = { farmId: input.farmId, blockIds: input.blockIds, from: input.from, to: input.to, exposureTo, bufferM: input.bufferM };
-  const blocks = await sprayedBlocks(sequelize, input.farmId, input.blockIds, transaction);
-  const exposures = await searchExposures(sequelize, scope, transaction);
-  const duringBloom = await searchBloom(sequelize, scope, transaction);
+  const { blocks, exposures, duringBloom } = await searchConflicts(sequelize, scope, transaction);
   // Flight hours at the first sprayed block's centre: the blocks of one plan lie close together.
   const flightHours = blocks.length ? hoursDuringBeeFlight(input.from, input.to, blocks[0].lat, blocks[0].lon) : 0;
   const noticeGivenHours = (input.from.getTime() - input.noticedAt.getTime()) / HOUR_MS;

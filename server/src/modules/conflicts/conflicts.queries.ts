@@ -44,14 +44,11 @@ export interface SprayedBlockRow {
   lat: number;
 }
 
-const sprayedCte = `
-  sprayed AS (
-    SELECT b.id, b.name, coalesce(b.outline, b.location) AS geom
+const searchSql = `
+  WITH sprayed AS (
+    SELECT b.id, b.name, b.farm_id, coalesce(b.outline, b.location) AS geom
     FROM blocks b WHERE b.id = ANY($blockIds::uuid[]) AND b.farm_id = $farmId
-  )`;
-
-const exposureSql = `
-  WITH ${sprayedCte},
+  ),
   near_sites AS (
     -- The buffer test is on the spheroid; the distance shown is on the sphere (within 0.5 %, and cheaper).
     SELECT DISTINCT ON (d.id) d.id, d.request_id, d.name, d.block_id, d.colonies_planned, d.location, x.distance_m
@@ -85,32 +82,31 @@ const exposureSql = `
     JOIN agreements a ON a.request_id = n.request_id AND a.state IN ('awaiting-signatures', 'in-force')
       AND a.expected_on_site && tstzrange($from, $exposureTo, '[)')
     WHERE NOT EXISTS (SELECT 1 FROM placements p WHERE p.agreement_id = a.id)
+  ),
+  exposures AS (
+    SELECT f.drop_site_id, n.name AS drop_site_name, b.name AS block_name, ST_X(n.location) AS lon, ST_Y(n.location) AS lat,
+      n.distance_m, (n.block_id IN (SELECT id FROM sprayed)) AS on_sprayed_block,
+      f.agreement_id, f.agreement_state, f.apiary_id, o.name AS apiary_name, f.notice_hours, f.colonies, f.placed, f.during_spray
+    FROM found f
+    JOIN near_sites n ON n.id = f.drop_site_id
+    JOIN blocks b ON b.id = n.block_id
+    JOIN organizations o ON o.id = f.apiary_id
   )
-  SELECT f.drop_site_id, n.name AS drop_site_name, b.name AS block_name, ST_X(n.location) AS lon, ST_Y(n.location) AS lat,
-    n.distance_m, (n.block_id IN (SELECT id FROM sprayed)) AS on_sprayed_block,
-    f.agreement_id, f.agreement_state, f.apiary_id, o.name AS apiary_name, f.notice_hours, f.colonies, f.placed, f.during_spray
-  FROM found f
-  JOIN near_sites n ON n.id = f.drop_site_id
-  JOIN blocks b ON b.id = n.block_id
-  JOIN organizations o ON o.id = f.apiary_id
-  ORDER BY o.name, n.distance_m, f.drop_site_id, f.agreement_id`;
-
-const bloomSql = `
-  SELECT EXISTS (
-    SELECT 1 FROM current_bloom_windows w
-    JOIN blocks b ON b.id = w.block_id
-    JOIN organizations o ON o.id = b.farm_id
-    WHERE w.block_id = ANY($blockIds::uuid[]) AND b.farm_id = $farmId
-      AND tstzrange((w.bloom_start::timestamp AT TIME ZONE o.time_zone), ((w.petal_fall + 1)::timestamp AT TIME ZONE o.time_zone), '[)')
+  SELECT
+    (SELECT coalesce(json_agg(json_build_object(
+        'id', s.id, 'name', s.name, 'outline', ST_AsGeoJSON(s.geom), 'lon', ST_X(ST_Centroid(s.geom)), 'lat', ST_Y(ST_Centroid(s.geom))
+      ) ORDER BY s.name), '[]') FROM sprayed s) AS blocks,
+    EXISTS (
+      SELECT 1 FROM current_bloom_windows w
+      JOIN sprayed s ON s.id = w.block_id
+      JOIN organizations o ON o.id = s.farm_id
+      WHERE tstzrange((w.bloom_start::timestamp AT TIME ZONE o.time_zone), ((w.petal_fall + 1)::timestamp AT TIME ZONE o.time_zone), '[)')
           && tstzrange($from, $exposureTo, '[)')
-  ) AS during_bloom`;
+    ) AS during_bloom,
+    (SELECT coalesce(json_agg(e ORDER BY e.apiary_name, e.distance_m, e.drop_site_id, e.agreement_id), '[]') FROM exposures e) AS exposures`;
 
-const blocksSql = `
-  WITH ${sprayedCte}
-  SELECT id, name, ST_AsGeoJSON(geom) AS outline, ST_X(ST_Centroid(geom)) AS lon, ST_Y(ST_Centroid(geom)) AS lat FROM sprayed ORDER BY name`;
-
-/** The exposure search's SQL, for the benchmark's EXPLAIN (bind parameters $farmId, $blockIds, $from, $to, $exposureTo, $bufferM). */
-export const exposureSqlForExplain = exposureSql;
+/** The search's SQL, for the benchmark's EXPLAIN (bind parameters $farmId, $blockIds, $from, $to, $exposureTo, $bufferM). */
+export const conflictSearchSqlForExplain = searchSql;
 
 export function searchBind(scope: SearchScope) {
   return { farmId: scope.farmId, blockIds: scope.blockIds, from: scope.from, to: scope.to, exposureTo: scope.exposureTo, bufferM: scope.bufferM };
@@ -118,19 +114,23 @@ export function searchBind(scope: SearchScope) {
 
 type Tx = Transaction | null | undefined;
 
-export function sprayedBlocks(sequelize: Sequelize, farmId: string, blockIds: string[], transaction?: Tx): Promise<SprayedBlockRow[]> {
-  return queryRows<SprayedBlockRow>(sequelize, blocksSql, { bind: { farmId, blockIds }, transaction });
+export interface ConflictSearch {
+  blocks: SprayedBlockRow[];
+  exposures: ExposureRow[];
+  duringBloom: boolean;
 }
 
-export async function searchExposures(sequelize: Sequelize, scope: SearchScope, transaction?: Tx): Promise<ExposureRow[]> {
-  const rows = await queryRows<ExposureRow>(sequelize, exposureSql, { bind: searchBind(scope), transaction });
-  return rows.map((r) => ({ ...r, distance_m: Number(r.distance_m), colonies: Number(r.colonies), notice_hours: Number(r.notice_hours) }));
-}
-
-export async function searchBloom(sequelize: Sequelize, scope: SearchScope, transaction?: Tx): Promise<boolean> {
-  const { exposureTo, farmId, blockIds, from } = searchBind(scope);
-  const row = await queryOne<{ during_bloom: boolean }>(sequelize, bloomSql, { bind: { exposureTo, farmId, blockIds, from }, transaction });
-  return Boolean(row?.during_bloom);
+/**
+ * The whole search in one statement (one round trip): the sprayed blocks, whether they bloom
+ * in the exposure window, and the colonies exposed, grouped per drop site and agreement.
+ */
+export async function searchConflicts(sequelize: Sequelize, scope: SearchScope, transaction?: Tx): Promise<ConflictSearch> {
+  const row = await queryOne<{ blocks: SprayedBlockRow[]; during_bloom: boolean; exposures: ExposureRow[] }>(sequelize, searchSql, { bind: searchBind(scope), transaction });
+  return {
+    blocks: row?.blocks ?? [],
+    duringBloom: Boolean(row?.during_bloom),
+    exposures: (row?.exposures ?? []).map((r) => ({ ...r, distance_m: Number(r.distance_m), colonies: Number(r.colonies), notice_hours: Number(r.notice_hours) })),
+  };
 }
 
 /** Sprays not cancelled and not yet over that cover one of these blocks (a bloom window changed). */

@@ -16,6 +16,9 @@ export interface StoredSpray {
   ld50UgPerBee: number | null;
   rt25Hours: number | null;
   noticedAt: Date;
+  productName: string;
+  epaRegNo: string | null;
+  farm: { id: string; name: string; timeZone: string };
   sprayBufferM: number;
   blockIds: string[];
 }
@@ -24,7 +27,7 @@ export async function loadStoredSpray(ctx: AppContext, sprayId: string, options:
   const { SprayPlan, SprayPlanBlock } = ctx.models;
   const { transaction } = options;
   const spray = await SprayPlan.findByPk(sprayId, {
-    include: [{ association: 'farm', attributes: ['sprayBufferM'] }],
+    include: [{ association: 'farm', attributes: ['id', 'name', 'timeZone', 'sprayBufferM'] }],
     transaction,
     ...(options.forUpdate && transaction ? { lock: { level: transaction.LOCK.UPDATE, of: SprayPlan } } : {}),
   });
@@ -33,6 +36,7 @@ export async function loadStoredSpray(ctx: AppContext, sprayId: string, options:
   return {
     id: spray.id, farmId: spray.farmId, state: spray.state, startsAt: spray.plannedWindow[0].value, endsAt: spray.plannedWindow[1].value,
     appliedAt: spray.appliedAt, ld50UgPerBee: spray.ld50UgPerBee, rt25Hours: spray.rt25Hours, noticedAt: spray.noticedAt,
+    productName: spray.productName, epaRegNo: spray.epaRegNo, farm: { id: spray.farm!.id, name: spray.farm!.name, timeZone: spray.farm!.timeZone },
     sprayBufferM: Number(spray.farm!.sprayBufferM), blockIds: links.map((l) => l.blockId),
   };
 }

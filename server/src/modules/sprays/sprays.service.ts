@@ -1,7 +1,8 @@
 // Spray plans of a farm: plan, change, move, apply, cancel. Each save runs in one
 // transaction: the plan's rows, the one conflict check the answer is built from, the alerts
 // it raises or clears with their publication jobs, and a durable re-check job (which
-// re-reads after the commit, so a placement changed while the save ran is not missed).
+// re-reads after the commit, so a placement changed while the save ran is not missed). The
+// plan's map (its blocks and buffer) is read for the answer after the commit.
 // Every query is scoped to the user's farm.
 import { Op, type Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
@@ -36,19 +37,21 @@ function farmOf(user: AuthUser): string {
 export function createSpraysService(ctx: AppContext) {
   const { SprayPlan, SprayPlanBlock, Block, Organization, Alert } = ctx.models;
 
-  async function toDtos(plans: SprayPlan[], transaction?: Transaction): Promise<SprayDto[]> {
+  const dtoOf = (p: SprayPlan, blocks: SprayDto['blocks'], openAlerts: number): SprayDto => ({
+    id: p.id, farmId: p.farmId, state: p.state, startsAt: p.plannedWindow[0].value.toISOString(), endsAt: p.plannedWindow[1].value.toISOString(),
+    appliedAt: p.appliedAt?.toISOString() ?? null, productName: p.productName, epaRegNo: p.epaRegNo, activeIngredients: p.activeIngredients,
+    ld50UgPerBee: p.ld50UgPerBee, rt25Hours: p.rt25Hours, targetPest: p.targetPest, applicatorName: p.applicatorName, notes: p.notes,
+    blocks, hazard: productBeeHazard({ ld50UgPerBee: p.ld50UgPerBee, rt25Hours: p.rt25Hours }),
+    openAlerts, createdAt: p.createdAt.toISOString(), updatedAt: p.updatedAt.toISOString(),
+  });
+
+  async function toDtos(plans: SprayPlan[]): Promise<SprayDto[]> {
     if (!plans.length) return [];
     const ids = plans.map((p) => p.id);
-    const blocks = await blocksOfSprays(ctx.sequelize, ids, transaction);
-    const open = await Alert.count({ where: { sprayPlanId: ids, state: { [Op.ne]: 'resolved' } }, group: ['sprayPlanId'], transaction });
+    const blocks = await blocksOfSprays(ctx.sequelize, ids);
+    const open = await Alert.count({ where: { sprayPlanId: ids, state: { [Op.ne]: 'resolved' } }, group: ['sprayPlanId'] });
     const openBySpray = new Map(open.map((o) => [String(o.sprayPlanId), Number(o.count)]));
-    return plans.map((p) => ({
-      id: p.id, farmId: p.farmId, state: p.state, startsAt: p.plannedWindow[0].value.toISOString(), endsAt: p.plannedWindow[1].value.toISOString(),
-      appliedAt: p.appliedAt?.toISOString() ?? null, productName: p.productName, epaRegNo: p.epaRegNo, activeIngredients: p.activeIngredients,
-      ld50UgPerBee: p.ld50UgPerBee, rt25Hours: p.rt25Hours, targetPest: p.targetPest, applicatorName: p.applicatorName, notes: p.notes,
-      blocks: blocks.get(p.id) ?? [], hazard: productBeeHazard({ ld50UgPerBee: p.ld50UgPerBee, rt25Hours: p.rt25Hours }),
-      openAlerts: openBySpray.get(p.id) ?? 0, createdAt: p.createdAt.toISOString(), updatedAt: p.updatedAt.toISOString(),
-    }));
+    return plans.map((p) => dtoOf(p, blocks.get(p.id) ?? [], openBySpray.get(p.id) ?? 0));
   }
 
   async function requireOwnBlocks(farmId: string, blockIds: string[], transaction?: Transaction): Promise<string[]> {
@@ -65,22 +68,23 @@ export function createSpraysService(ctx: AppContext) {
     return plan;
   }
 
-  async function answer(farmId: string, id: string, check: CheckOutput, transaction?: Transaction): Promise<SprayWithCheck> {
-    const plan = await SprayPlan.findOne({ where: { id, farmId }, transaction });
-    if (!plan) throw notFound('That spray plan');
-    const [spray] = await toDtos([plan], transaction);
-    const buffer = await bufferArea(ctx.sequelize, id, transaction);
-    return { spray, check: publicCheck(check), buffer: buffer ? JSON.parse(buffer) : null };
-  }
+  const mapOf = (buffer: string | null): SprayWithCheck['buffer'] => (buffer ? JSON.parse(buffer) : null);
 
-  /** The rest of every save, in its transaction: the durable re-check job, then the one check. */
-  async function checkAndAnswer(farmId: string, id: string, transaction: Transaction): Promise<SprayWithCheck> {
-    await sprayChanged(ctx, transaction, id);
-    const { check } = await recheckSprayIn(ctx, transaction, id);
-    return answer(farmId, id, check!, transaction);
+  /**
+   * A save in one transaction: the plan's rows, then its durable re-check job and the one
+   * check, which raises or clears its alerts (published as the transaction commits). The
+   * answer is read after the commit, so the alerts go out without waiting for it; every
+   * alert left open is one of the check's conflicts.
+   */
+  async function save(work: (t: Transaction) => Promise<SprayPlan>): Promise<SprayWithCheck> {
+    const { plan, check } = await ctx.sequelize.transaction(async (transaction) => {
+      const saved = await work(transaction);
+      await sprayChanged(ctx, transaction, saved.id);
+      return { plan: saved, check: (await recheckSprayIn(ctx, transaction, saved.id)).check! };
+    });
+    const [blocks, buffer] = await Promise.all([blocksOfSprays(ctx.sequelize, [plan.id]), bufferArea(ctx.sequelize, plan.id)]);
+    return { spray: dtoOf(plan, blocks.get(plan.id) ?? [], check.conflicts.length), check: publicCheck(check), buffer: mapOf(buffer) };
   }
-
-  const save = (work: (t: Transaction) => Promise<SprayWithCheck>) => ctx.sequelize.transaction(work);
 
   return {
     async list(user: AuthUser, state?: SprayState): Promise<SprayDto[]> {
@@ -94,7 +98,10 @@ export function createSpraysService(ctx: AppContext) {
       const stored = await loadStoredSpray(ctx, id);
       if (!stored || stored.farmId !== farmId) throw notFound('That spray plan');
       const check = await checkStoredSpray(ctx, stored);
-      return answer(farmId, id, stored.state === 'cancelled' ? { ...check, conflicts: [] } : check);
+      const plan = await SprayPlan.findOne({ where: { id, farmId } });
+      if (!plan) throw notFound('That spray plan');
+      const [[spray], buffer] = await Promise.all([toDtos([plan]), bufferArea(ctx.sequelize, id)]);
+      return { spray, check: publicCheck(stored.state === 'cancelled' ? { ...check, conflicts: [] } : check), buffer: mapOf(buffer) };
     },
 
     /** The dry run: the same check, nothing stored. */
@@ -122,7 +129,7 @@ export function createSpraysService(ctx: AppContext) {
           noticedAt: ctx.now(), createdBy: user.id,
         }, { transaction });
         await SprayPlanBlock.bulkCreate(blockIds.map((blockId) => ({ sprayPlanId: plan.id, blockId })), { transaction });
-        return checkAndAnswer(farmId, plan.id, transaction);
+        return plan;
       });
     },
 
@@ -150,7 +157,7 @@ export function createSpraysService(ctx: AppContext) {
           await SprayPlanBlock.destroy({ where: { sprayPlanId: id }, transaction });
           await SprayPlanBlock.bulkCreate(blockIds.map((blockId) => ({ sprayPlanId: id, blockId })), { transaction });
         }
-        return checkAndAnswer(farmId, id, transaction);
+        return plan;
       });
     },
 
@@ -166,7 +173,7 @@ export function createSpraysService(ctx: AppContext) {
           state: 'applied', appliedAt,
           exposureWindow: windowOf(window.from, exposureEnd(window.to, { ld50UgPerBee: plan.ld50UgPerBee, rt25Hours: plan.rt25Hours })),
         }, { transaction });
-        return checkAndAnswer(farmId, id, transaction);
+        return plan;
       });
     },
 
@@ -176,7 +183,7 @@ export function createSpraysService(ctx: AppContext) {
         const plan = await lockOwn(farmId, id, transaction);
         if (plan.state !== 'planned') throw wrongState(`This spray is ${labelOf(sprayStateSet, plan.state).toLowerCase()}; only a planned spray can be cancelled.`);
         await plan.update({ state: 'cancelled' }, { transaction });
-        return checkAndAnswer(farmId, id, transaction);
+        return plan;
       });
     },
   };
