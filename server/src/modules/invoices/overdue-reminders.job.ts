@@ -39,7 +39,7 @@ export async function sendOverdueReminders(ctx: AppContext): Promise<number> {
             : '',
           'Sign in to Pollenpact to pay online, or contact the beekeeper if you have already paid.',
         ].filter(Boolean).join('\n\n'),
-      });
+      }, { transaction: { sequelize: ctx.sequelize, transaction } });
       return true;
     });
     if (didSend) sent += 1;
