@@ -14,6 +14,7 @@ import { listCommitments } from '../requests/request-commitments.js';
 import { createRequestsService } from '../requests/requests.service.js';
 import { mailOrganizations, publish } from '../requests/notify.js';
 import { createAgreementForCommitment, announceAgreement } from '../agreements/agreement-create.js';
+import { agreementChanged } from '../alerts/conflict-rechecks.js';
 import { dayIsOver } from '../../../../shared/domain/local-day.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
 import { commitmentStateSet, requestStateSet } from '../../../../shared/labels/requests.js';
@@ -127,7 +128,10 @@ export function createCommitmentsService(ctx: AppContext) {
         if (!['offered', 'accepted'].includes(commitment.state)) throw wrongState(`This commitment is already ${labelOf(commitmentStateSet, commitment.state).toLowerCase()}.`);
         const agreement = await ctx.models.Agreement.findOne({ attributes: ['id', 'state'], where: { commitmentId: id }, transaction: t, lock: t.LOCK.UPDATE });
         if (agreement && agreement.state !== 'awaiting-signatures') throw wrongState('The agreement for this commitment is confirmed by both sides; change it by amendment instead.');
-        if (agreement) await agreement.update({ state: 'cancelled' }, { transaction: t });
+        if (agreement) {
+          await agreement.update({ state: 'cancelled' }, { transaction: t });
+          await agreementChanged(ctx, t, agreement.id); // its expected colonies no longer count in the spray conflict check
+        }
         await commitment.update({ state: 'withdrawn', decidedBy: user.id, decidedAt: ctx.now() }, { transaction: t });
         await recordRequestEvent(ctx, t, request.id, user.id, 'commitment-withdrawn', { commitmentId: id, colonies: commitment.colonies });
         await refreshFillState(ctx, request.id, user.id, t);

@@ -16,6 +16,7 @@ import { recordRequestEvent } from './request-events.js';
 import { coloniesOpen, committedColonies } from './request-state.js';
 import { listCommitments } from './request-commitments.js';
 import { apiaryIds, mailOrganizations, publish } from './notify.js';
+import { agreementChanged } from '../alerts/conflict-rechecks.js';
 import { dayIsOver } from '../../../../shared/domain/local-day.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
 import { requestStateSet } from '../../../../shared/labels/requests.js';
@@ -168,7 +169,10 @@ export function createRequestsService(ctx: AppContext) {
           throw wrongState('An agreement for this request is confirmed by both sides; change it by amendment instead of withdrawing the request.');
         }
         const holding = await ctx.models.Commitment.scope('holding').findAll({ attributes: ['apiaryId'], where: { requestId: id }, transaction: t });
-        await ctx.models.Agreement.update({ state: 'cancelled' }, { where: { requestId: id, state: 'awaiting-signatures' }, transaction: t });
+        const unsigned = await ctx.models.Agreement.findAll({ attributes: ['id'], where: { requestId: id, state: 'awaiting-signatures' }, transaction: t, lock: t.LOCK.UPDATE });
+        await ctx.models.Agreement.update({ state: 'cancelled' }, { where: { id: unsigned.map((a) => a.id) }, transaction: t });
+        // Their expected colonies no longer count in the spray conflict check.
+        for (const agreement of unsigned) await agreementChanged(ctx, t, agreement.id);
         await ctx.models.Commitment.update(
           { state: 'withdrawn', decidedBy: user.id, decidedAt: ctx.now() },
           { where: { requestId: id, state: ['offered', 'accepted'] }, transaction: t },
