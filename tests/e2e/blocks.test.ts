@@ -13,6 +13,8 @@ import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot } fro
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildStation } from '../support/builders/weather.js';
 import { squareOutline } from '../support/builders/season.js';
+import { signedInClient } from '../support/api-client.js';
+import type { ChillDto } from '../../shared/schemas/weather.js';
 
 describe('blocks and weather in the browser', () => {
   let t: TestApp;
@@ -81,6 +83,7 @@ describe('blocks and weather in the browser', () => {
     // 480 DD°F is past apple petal fall (439–523 DD°F, Cornell / UMass): frost risk uses WSU's "Post bloom" row,
     // 10% kill 28 °F, 90% kill 25 °F (WSU Extension EB0913 via Penn State Extension).
     expect(await page.getByTestId('frost-stage').innerText()).toMatch(/Stage Petal fall uses the row Post bloom: 10% of buds killed at 28 °F, 90% at 25 °F/);
+    expect(await page.getByTestId('frost-risk').innerText()).toMatch(/Critical temperatures: WSU Extension.*Stage: Cornell/s);
     await saveScreenshot(page, 'block-detail-desktop');
 
     await page.setViewportSize({ width: 360, height: 800 });
@@ -92,5 +95,21 @@ describe('blocks and weather in the browser', () => {
     expect(consoleErrors.filter((e) => !/status of 400 \(Bad Request\)/.test(e))).toEqual([]);
     expect(consoleErrors.filter((e) => /status of 400/.test(e))).toHaveLength(1);
     expect(externalRequests).toEqual([]);
+  });
+
+  it('names on the chill chart the day Utah chill counting starts', async () => {
+    // Source: Richardson, Seeley & Walker 1974, HortScience 9:331–332 (Utah model): counted from the fall's most
+    // negative running total, searched from September 1 (from memory of the paper); the API computes the day.
+    const owner = await signedInClient(t.app, 'owner@sorrelwick.test');
+    const chill = (await owner.get(`/api/weather/stations/${stationId}/chill`).expect(200)).body.chill as ChillDto;
+    const { page, consoleErrors, externalRequests } = await openWatchedPage(browser);
+    await signInThroughPage(page, t.baseUrl, 'owner@sorrelwick.test');
+    await page.goto(`${t.baseUrl}/weather/${stationId}`);
+    const caption = page.getByTestId('chill-start');
+    await caption.waitFor();
+    expect(await caption.innerText()).toMatch(new RegExp(`^Counted from ${DateTime.fromISO(chill.from).toFormat('d LLL yyyy')}\\. .*most negative`));
+    if (chill.series.length) await page.getByRole('img', { name: `Utah chill units counted from ${DateTime.fromISO(chill.from).toFormat('d LLL yyyy')}`, exact: false }).waitFor();
+    expect(externalRequests).toEqual([]);
+    expect(consoleErrors).toEqual([]);
   });
 });

@@ -138,4 +138,18 @@ describe('spray plans and live alerts in the browser', () => {
     expect(externalRequests).toEqual([]);
     expect(consoleErrors).toEqual([]);
   });
+
+  it('pre-fills the trap check with today at the farm on a US evening, not the UTC date', async () => {
+    // 20:30 in Los Angeles is 03:30 or 04:30 the next day in UTC (UTC-7 / UTC-8: IANA time zone database).
+    const evening = DateTime.now().setZone(zone).minus({ days: 1 }).set({ hour: 20, minute: 30, second: 0, millisecond: 0 });
+    expect(evening.toUTC().toISODate()).not.toBe(evening.toISODate());
+    const { page, consoleErrors, externalRequests } = await openWatchedPage(browser);
+    await signInThroughPage(page, t.baseUrl, 'grower@sprays-e2e.test');
+    await page.clock.setFixedTime(evening.toJSDate());
+    await page.goto(`${t.baseUrl}/sprays`);
+    await page.getByLabel('Checked on').waitFor(slow);
+    expect(await page.getByLabel('Checked on').inputValue()).toBe(evening.toISODate());
+    expect(externalRequests).toEqual([]);
+    expect(consoleErrors).toEqual([]);
+  });
 });
