@@ -5,6 +5,8 @@ import { DateTime } from 'luxon';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
 import { notFound } from '../../errors/http-errors.js';
+import { isAllowed } from '../../../../shared/policies/policy-table.js';
+import { dashboardPolicy } from './dashboard.policy.js';
 import { seasonClock, type SeasonClock } from './season-clock.js';
 import { coloniesNeeded } from '../../../../shared/domain/stocking.js';
 import { createSeasonExtras } from './season-extras.js';
@@ -70,9 +72,9 @@ export function createDashboardService(ctx: AppContext) {
       const blocks: GrowerBlockSummary[] = blockRows.map((r) => {
         const bloomWindow = r.bloom_start ? { bloomStart: r.bloom_start, fullBloom: r.full_bloom, petalFall: r.petal_fall! } : null;
         return {
-          id: r.id, name: r.name, crop: r.crop, acres: Number(r.acres), coloniesPerAcre: Number(r.colonies_per_acre),
+          id: r.id, name: r.name, crop: r.crop, acres: r.acres, coloniesPerAcre: r.colonies_per_acre,
           // The one rule the block page uses too (shared/domain/stocking.ts).
-          coloniesNeeded: coloniesNeeded(Number(r.acres), Number(r.colonies_per_acre)), coloniesPlanned: r.planned, coloniesOnSite: r.on_site,
+          coloniesNeeded: coloniesNeeded(r.acres, r.colonies_per_acre), coloniesPlanned: r.planned, coloniesOnSite: r.on_site,
           bloomWindow, bloomState: bloomState(clock.today, bloomWindow),
         };
       });
@@ -123,7 +125,7 @@ export function createDashboardService(ctx: AppContext) {
         today: clock.today,
         timeZone: zone,
         coloniesOwned: org.coloniesOwned,
-        canEditColoniesOwned: user.roleKey === 'apiary:owner',
+        canEditColoniesOwned: isAllowed(dashboardPolicy, 'setColoniesOwned', user.roleKey),
         weeks,
         peakCommitted: Math.max(0, ...weeks.map((wk) => wk.committed)),
         dropOffsDue: dueRows.filter((r) => r.kind === 'drop-off').map(toDue),

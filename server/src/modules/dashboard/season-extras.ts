@@ -33,7 +33,7 @@ export function createSeasonExtras(ctx: AppContext) {
       const rows = await selectUpcomingSprays(db, { farmId, now: clock.now.toISOString() });
       return rows.map((r) => ({
         id: r.id, product: r.product, blockNames: r.blocks, plannedStart: iso(r.start)!, plannedEnd: iso(r.end)!,
-        residualHours: r.rt25_hours === null ? null : Number(r.rt25_hours), residualEnd: iso(r.residual_end)!, state: r.state,
+        residualHours: r.rt25_hours, residualEnd: iso(r.residual_end)!, state: r.state,
       }));
     },
 
@@ -80,7 +80,7 @@ export function createSeasonExtras(ctx: AppContext) {
           geometry: JSON.parse(r.geometry!) as SeasonMapFeature['geometry'],
           properties: {
             kind: 'spray-buffer' as const, name: r.product, state: r.active ? 'spray-active' : 'spray-planned',
-            detail: `${Math.round(Number(r.buffer_m))} m buffer · from ${zonedDateTime(r.start, r.time_zone)} (${r.time_zone})`,
+            detail: `${Math.round(r.buffer_m)} m buffer · from ${zonedDateTime(r.start, r.time_zone)} (${r.time_zone})`,
           },
         }));
     },
