@@ -67,6 +67,14 @@ const searchSql = `
     JOIN placements p ON p.drop_site_id = n.id AND p.on_site && tstzrange($from, $exposureTo, '[)')
     GROUP BY p.drop_site_id, p.agreement_id, p.state <> 'scheduled'
   ),
+  unscheduled AS MATERIALIZED (
+    -- Agreements with no placement yet, looked up once per request near the spray, not once per drop site.
+    SELECT a.id, a.request_id, a.state, a.apiary_id, a.notice_hours, a.colonies, a.expected_on_site && tstzrange($from, $to, '[)') AS during_spray
+    FROM (SELECT DISTINCT request_id FROM near_sites) r
+    JOIN agreements a ON a.request_id = r.request_id AND a.state IN ('awaiting-signatures', 'in-force')
+      AND a.expected_on_site && tstzrange($from, $exposureTo, '[)')
+    WHERE NOT EXISTS (SELECT 1 FROM placements p WHERE p.agreement_id = a.id)
+  ),
   found AS (
     SELECT x.drop_site_id, a.id AS agreement_id, a.state AS agreement_state, a.apiary_id, a.notice_hours,
       sum(x.colonies) AS colonies, bool_or(x.placed) AS placed, bool_or(x.during_spray) AS during_spray
@@ -76,12 +84,8 @@ const searchSql = `
     GROUP BY x.drop_site_id, a.id
     UNION ALL
     -- Agreed but not yet scheduled: the agreement's window at its request's drop sites.
-    SELECT n.id, a.id, a.state, a.apiary_id, a.notice_hours, least(a.colonies, n.colonies_planned), false,
-      a.expected_on_site && tstzrange($from, $to, '[)')
-    FROM near_sites n
-    JOIN agreements a ON a.request_id = n.request_id AND a.state IN ('awaiting-signatures', 'in-force')
-      AND a.expected_on_site && tstzrange($from, $exposureTo, '[)')
-    WHERE NOT EXISTS (SELECT 1 FROM placements p WHERE p.agreement_id = a.id)
+    SELECT n.id, u.id, u.state, u.apiary_id, u.notice_hours, least(u.colonies, n.colonies_planned), false, u.during_spray
+    FROM unscheduled u JOIN near_sites n ON n.request_id = u.request_id
   ),
   exposures AS (
     SELECT f.drop_site_id, n.name AS drop_site_name, b.name AS block_name, ST_X(n.location) AS lon, ST_Y(n.location) AS lat,
@@ -97,10 +101,11 @@ const searchSql = `
         'id', s.id, 'name', s.name, 'outline', ST_AsGeoJSON(s.geom), 'lon', ST_X(ST_Centroid(s.geom)), 'lat', ST_Y(ST_Centroid(s.geom))
       ) ORDER BY s.name), '[]') FROM sprayed s) AS blocks,
     EXISTS (
+      -- block_id = ANY(...) rather than a join, so the view's latest-window search is by block.
       SELECT 1 FROM current_bloom_windows w
       JOIN sprayed s ON s.id = w.block_id
       JOIN organizations o ON o.id = s.farm_id
-      WHERE tstzrange((w.bloom_start::timestamp AT TIME ZONE o.time_zone), ((w.petal_fall + 1)::timestamp AT TIME ZONE o.time_zone), '[)')
+      WHERE w.block_id = ANY($blockIds::uuid[]) AND tstzrange((w.bloom_start::timestamp AT TIME ZONE o.time_zone), ((w.petal_fall + 1)::timestamp AT TIME ZONE o.time_zone), '[)')
           && tstzrange($from, $exposureTo, '[)')
     ) AS during_bloom,
     (SELECT coalesce(json_agg(e ORDER BY e.apiary_name, e.distance_m, e.drop_site_id, e.agreement_id), '[]') FROM exposures e) AS exposures`;
