@@ -1,6 +1,6 @@
 // Every change that can create or clear a spray conflict, made through its own route, queues
 // the durable re-check in its transaction (the job runs after the commit). Spray plan
-// changes, bloom windows and agreements ending before they are signed are covered here;
+// changes, bloom windows, a block redrawn and agreements ending before they are signed are covered here;
 // drop-off, pickup, signing and amending in placements.test.ts and agreements.test.ts.
 // An agreement waiting for signatures counts in the check as colonies expected on site, so
 // when it ends (the beekeeper withdraws, or the grower withdraws the request) its alert is
@@ -11,6 +11,7 @@ import { startTestApp, type TestApp } from '../support/test-app.js';
 import { signedInClient, type ApiClient } from '../support/api-client.js';
 import { buildMarket, requestPayload } from '../support/builders/requests.js';
 import { sprayInput } from '../support/builders/sprays.js';
+import { buildBlock, squareOutline } from '../support/builders/season.js';
 import { recheckRanSince } from '../support/recheck-jobs.js';
 
 describe('changes that queue a spray conflict re-check', () => {
@@ -27,20 +28,30 @@ describe('changes that queue a spray conflict re-check', () => {
   });
   afterAll(async () => { await t?.stop(); });
 
-  /** A listed request on the block, an agreement waiting for signatures, and a spray during its window raising an alert for the apiary. */
-  async function expectedColoniesUnderSpray(productName: string) {
+  /** A listed request on the block and an agreement waiting for signatures: a night midway through its expected stay. */
+  async function unsignedAgreement() {
     const request = (await grower.post('/api/requests', requestPayload(m.block.id, {}, m)).expect(201)).body.request;
     await grower.post(`/api/requests/${request.id}/publish`).expect(200);
     const offer = (await keeper.post(`/api/requests/${request.id}/commitments`, { colonies: 20 }).expect(201)).body.commitment;
     const agreement = (await keeper.get(`/api/agreements/${offer.agreementId}`).expect(200)).body.agreement;
     expect(agreement.state).toBe('awaiting-signatures');
-    // Midway through the expected stay, on the sprayed block, a product without label data.
     const from = new Date(agreement.expectedOnSite.from).getTime();
     const to = new Date(agreement.expectedOnSite.to).getTime();
-    const startsAt = new Date(from + Math.floor((to - from) / 2));
-    const saved = (await grower.post('/api/sprays', sprayInput({ blockIds: [m.block.id], startsAt, productName })).expect(201)).body;
-    expect(saved.check.conflicts.map((c: { apiaryId: string }) => c.apiaryId)).toEqual([m.apiary.id]);
-    return { requestId: request.id as string, commitmentId: offer.id as string, agreementId: agreement.id as string, sprayId: saved.spray.id as string };
+    return { requestId: request.id as string, commitmentId: offer.id as string, agreementId: agreement.id as string, midway: new Date(from + Math.floor((to - from) / 2)) };
+  }
+
+  /** A spray (a product without label data) on a block, with the apiary businesses its check finds. */
+  async function sprayOn(blockId: string, startsAt: Date, productName: string) {
+    const saved = (await grower.post('/api/sprays', sprayInput({ blockIds: [blockId], startsAt, productName })).expect(201)).body;
+    return { sprayId: saved.spray.id as string, apiaries: saved.check.conflicts.map((c: { apiaryId: string | null }) => c.apiaryId).filter(Boolean) as string[] };
+  }
+
+  /** The agreement's colonies are expected on the sprayed block: an alert for the apiary. */
+  async function expectedColoniesUnderSpray(productName: string) {
+    const agreement = await unsignedAgreement();
+    const spray = await sprayOn(m.block.id, agreement.midway, productName);
+    expect(spray.apiaries).toEqual([m.apiary.id]);
+    return { ...agreement, sprayId: spray.sprayId };
   }
 
   /** The state of the spray's alert for the apiary business (the farm's own bloom alert stays). */
@@ -71,6 +82,17 @@ describe('changes that queue a spray conflict re-check', () => {
     await grower.post(`/api/requests/${requestId}/withdraw`).expect(200);
     await expect.poll(() => recheckRanSince(t, `agreement:${agreementId}`, at), { timeout: 10_000 }).toBe(true);
     await expect.poll(() => apiaryAlert(sprayId), { timeout: 10_000 }).toBe('resolved');
+  });
+
+  it('raises the alert when a block is redrawn to reach colonies its spray did not', async () => {
+    const { midway } = await unsignedAgreement();
+    const far = await buildBlock({ farm: m.farm, name: 'Far Bartletts', lon: m.lon + 0.3, lat: m.lat });
+    const { sprayId, apiaries } = await sprayOn(far.id, midway, 'Tansyfield 8EC');
+    expect(apiaries).toEqual([]);
+    const at = await settled(`block:${far.id}`);
+    await grower.patch(`/api/blocks/${far.id}`, { outline: squareOutline(m.lon + 0.004, m.lat, 20) }).expect(200);
+    await expect.poll(() => recheckRanSince(t, `block:${far.id}`, at), { timeout: 10_000 }).toBe(true);
+    await expect.poll(() => apiaryAlert(sprayId), { timeout: 10_000 }).toBe('raised');
   });
 
   it('re-checks a spray plan after it is changed, applied and cancelled, and a block after its bloom window is published or revised', async () => {

@@ -32,6 +32,9 @@ export const sprayChanged = (ctx: AppContext, transaction: Transaction, sprayId:
 /** A block's bloom window was published or revised. */
 export const bloomWindowChanged = (ctx: AppContext, transaction: Transaction, blockId: string) => queueRecheck(ctx, transaction, 'block', blockId);
 
+/** A block's outline or location was redrawn: the conflict check measures from it. */
+export const blockPlaceChanged = (ctx: AppContext, transaction: Transaction, blockId: string) => queueRecheck(ctx, transaction, 'block', blockId);
+
 /** An agreement was signed, amended or ended, or one of its placements changed. */
 export const agreementChanged = (ctx: AppContext, transaction: Transaction, agreementId: string) => queueRecheck(ctx, transaction, 'agreement', agreementId);
 

@@ -14,6 +14,7 @@ import type { BloomWindow } from '../../db/models/bloom-window.model.js';
 import { badRequest, conflict, notFound } from '../../errors/http-errors.js';
 import { toBlockDto } from './block-dto.js';
 import { outlineFacts } from './blocks.queries.js';
+import { blockPlaceChanged } from '../alerts/conflict-rechecks.js';
 
 type CreateInput = z.output<typeof blockBody>;
 type PatchInput = z.output<typeof blockPatch>;
@@ -117,16 +118,21 @@ export function createBlocksService(ctx: AppContext) {
       }
       const place = drawn ?? (await placeOf(outline, location, enteredAcres));
       const given = Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined)) as Partial<PatchInput>;
+      const moved = patch.outline !== undefined || patch.location !== undefined;
       try {
-        await block.update({
-          name: given.name ?? block.name, crop: given.crop ?? block.crop, variety: 'variety' in given ? given.variety ?? null : block.variety,
-          pollinizerVariety: 'pollinizerVariety' in given ? given.pollinizerVariety ?? null : block.pollinizerVariety,
-          yearPlanted: 'yearPlanted' in given ? given.yearPlanted ?? null : block.yearPlanted,
-          treesPerAcre: 'treesPerAcre' in given ? given.treesPerAcre ?? null : block.treesPerAcre,
-          notes: 'notes' in given ? given.notes ?? null : block.notes, coloniesPerAcre: given.coloniesPerAcre ?? block.coloniesPerAcre,
-          weatherStationId: 'weatherStationId' in given ? given.weatherStationId ?? null : block.weatherStationId,
-          degreeDayStart: 'degreeDayStart' in given ? given.degreeDayStart ?? null : block.degreeDayStart,
-          ...place,
+        await sequelize.transaction(async (transaction) => {
+          await block.update({
+            name: given.name ?? block.name, crop: given.crop ?? block.crop, variety: 'variety' in given ? given.variety ?? null : block.variety,
+            pollinizerVariety: 'pollinizerVariety' in given ? given.pollinizerVariety ?? null : block.pollinizerVariety,
+            yearPlanted: 'yearPlanted' in given ? given.yearPlanted ?? null : block.yearPlanted,
+            treesPerAcre: 'treesPerAcre' in given ? given.treesPerAcre ?? null : block.treesPerAcre,
+            notes: 'notes' in given ? given.notes ?? null : block.notes, coloniesPerAcre: given.coloniesPerAcre ?? block.coloniesPerAcre,
+            weatherStationId: 'weatherStationId' in given ? given.weatherStationId ?? null : block.weatherStationId,
+            degreeDayStart: 'degreeDayStart' in given ? given.degreeDayStart ?? null : block.degreeDayStart,
+            ...place,
+          }, { transaction });
+          // Sprays on the block are re-checked against the drop sites it now reaches.
+          if (moved) await blockPlaceChanged(ctx, transaction, id);
         });
       } catch (err) {
         if (err instanceof UniqueConstraintError) throw nameTaken();
