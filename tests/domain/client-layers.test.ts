@@ -32,7 +32,32 @@ function offendingFiles(): Map<string, string[]> {
   return found;
 }
 
+function clientSources(dir: string): string[] {
+  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
+    const path = join(dir, entry.name);
+    if (entry.isDirectory()) return clientSources(path);
+    return /\.(vue|ts)$/.test(entry.name) ? [path] : [];
+  });
+}
+
+/** Lines that decide by a role themselves (a role key, or comparing or listing `.role`) instead of asking useCan(). */
+function roleRules(source: string): string[] {
+  return source.split('\n').filter((line) =>
+    /['"](farm|apiary):(owner|manager|applicator|viewer|crew)['"]/.test(line) || /\.role\s*[!=]==|\.includes\([^)]*\.role\b/.test(line));
+}
+
 describe('client layers', () => {
+  it('pages, components, layouts and composables take who may do what from the shared policies (useCan), not from role lists of their own', () => {
+    // The session store alone turns the signed-in user's role into a role key and a side.
+    const files = clientSources('client/src').filter((f) => !f.endsWith('stores/session.ts'));
+    const strays = files.flatMap((file) => roleRules(readFileSync(file, 'utf8')).map((line) => `${file}: ${line.trim()}`));
+    expect(strays).toEqual([]);
+    // the check itself
+    expect(roleRules("const canEdit = computed(() => ['farm:owner', 'farm:manager'].includes(session.roleKey));")).toHaveLength(1);
+    expect(roleRules("const isOwner = computed(() => user.value?.role === 'owner');")).toHaveLength(1);
+    expect(roleRules("const canEdit = useCan('blocks.update');")).toEqual([]);
+  });
+
   it('components import nothing but types from the api layer; no page or component keeps its own saving flag or reads field errors by hand', () => {
     const strays = [...offendingFiles()].map(([file, what]) => `${file}: ${what.join('; ')}`);
     expect(strays).toEqual([]);

@@ -18,7 +18,6 @@ export const useSessionStore = defineStore('session', () => {
   const currentRoleKey = computed<RoleKey | null>(() =>
     user.value ? roleKey(user.value.organization?.kind ?? null, user.value.role) : null,
   );
-  const isOwner = computed(() => user.value?.role === 'owner');
   const units = computed(() => user.value?.units ?? 'imperial');
   const timeZone = computed(() => user.value?.timeZone ?? user.value?.organization?.timeZone ?? 'UTC');
 
@@ -45,7 +44,6 @@ export const useSessionStore = defineStore('session', () => {
     loaded,
     side,
     roleKey: currentRoleKey,
-    isOwner,
     units,
     timeZone,
     load,
