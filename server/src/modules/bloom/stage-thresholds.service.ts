@@ -11,6 +11,8 @@ import type {
 import type { CropStageThreshold } from '../../db/models/crop-stage-threshold.model.js';
 import type { FrostCriticalTemperature } from '../../db/models/frost-critical-temperature.model.js';
 import { badRequest, conflict, forbidden, notFound } from '../../errors/http-errors.js';
+import { isAllowed } from '../../../../shared/policies/policy-table.js';
+import { bloomPolicy } from './bloom.policy.js';
 
 const toThreshold = (t: CropStageThreshold): StageThresholdDto => ({
   id: t.id, farmId: t.farmId, crop: t.crop, variety: t.variety, stage: t.stage, label: t.label, sortOrder: t.sortOrder,
@@ -31,7 +33,7 @@ export function createStageThresholdsService(ctx: AppContext) {
 
   /** Published rows are the admin's to change; a farm's own rows are only ever found for that farm. */
   function assertMayEdit(user: AuthUser, farmId: string | null) {
-    if (farmId === null && user.roleKey !== 'admin') {
+    if (farmId === null && !isAllowed(bloomPolicy, 'editPublishedReference', user.roleKey)) {
       throw forbidden('Only the platform admin changes the published defaults; add your farm\'s own thresholds instead.');
     }
   }
