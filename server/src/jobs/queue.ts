@@ -5,9 +5,10 @@
 // Failed jobs are retried with backoff (JOB_RETRY_* settings); after the last try a job
 // stays 'failed' with its error, which the admin's queue view shows.
 import PgBoss from 'pg-boss';
-import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import type { Sequelize, Transaction } from 'sequelize';
 import type { Logger } from 'pino';
 import { queueNames, queuePolicies, type QueueName } from './queue-names.js';
+import { queryRows } from '../db/query-rows.js';
 
 export interface JobRetry {
   delaySeconds: number;
@@ -37,8 +38,7 @@ export function transactionDb(sequelize: Sequelize, transaction: Transaction): P
   return {
     async executeSql(text, values) {
       const bind = values.map((v) => (v === undefined ? null : v));
-      const rows = await sequelize.query(text, { bind, transaction, type: QueryTypes.SELECT });
-      return { rows: rows as unknown[] };
+      return { rows: await queryRows(sequelize, text, { bind, transaction }) };
     },
   };
 }
