@@ -101,7 +101,7 @@ describe('changes that queue a spray conflict re-check', () => {
     const other = (await grower.post('/api/sprays', sprayInput({ blockIds: [m.block.id], startsAt: night, productName: 'Tansyfield 7EC' })).expect(201)).body.spray;
     const key = (id: string) => `spray:${id}`;
     let at = await settled(key(planned.id));
-    await grower.patch(`/api/sprays/${planned.id}`, { notes: 'Moved to the evening' }).expect(200);
+    await grower.patch(`/api/sprays/${planned.id}`, { notes: 'Applicator to confirm the nozzle set' }).expect(200);
     await expect.poll(() => recheckRanSince(t, key(planned.id), at), { timeout: 10_000 }).toBe(true);
     at = await settled(key(planned.id));
     await grower.post(`/api/sprays/${planned.id}/apply`, { appliedAt: new Date(Date.now() - 60_000).toISOString() }).expect(200);
