@@ -56,4 +56,23 @@ describe('catching up on alerts after a disconnect', () => {
     expect(watched.map((e) => e.alert.spray.id).sort()).toEqual([...sprayIds].sort());
     expect(live.every((e) => caughtUp.some((a) => a.id === e.alert.id && a.revision === e.alert.revision))).toBe(true);
   });
+
+  it('also sends what changed shortly before the revision held, which a slower save may have committed after it', async () => {
+    // Revisions come from one sequence as saves take them: a save holding a lower revision can
+    // commit after one with a higher revision, while this client is away. So a catch-up from
+    // revision R also sends the alerts changed in the ten minutes before R's change.
+    const plan = async (i: number, product: string) => (await grower.agent.post('/api/sprays').set('X-CSRF-Token', grower.csrf).send(world.conflictingSpray(i, product)).expect(201)).body.spray.id as string;
+    const old = await plan(4, 'Fernleap 4EC');
+    const late = await plan(5, 'Fernleap 5EC');
+    const newest = await plan(6, 'Fernleap 6EC');
+    const alertOf = async (sprayId: string) => (await t.context.models.Alert.findOne({ where: { sprayPlanId: sprayId, apiaryId: world.apiaryId } }))!;
+    // The oldest one changed an hour before: out of reach.
+    await t.context.sequelize.query("UPDATE alerts SET updated_at = now() - interval '1 hour' WHERE id = $id", { bind: { id: (await alertOf(old)).id } });
+    const held = Number((await alertOf(newest)).revision);
+    const caughtUp: AlertDto[] = (await keeper.agent.get(`/api/alerts?since=${held}`).expect(200)).body.alerts;
+    const sprays = caughtUp.map((a) => a.spray.id);
+    expect(sprays).toContain(late);
+    expect(sprays).not.toContain(old);
+    expect(Number((await alertOf(late)).revision)).toBeLessThan(held);
+  });
 });

@@ -13,6 +13,8 @@ import type { AlertDto, AlertEventDto } from '../../../../shared/schemas/alerts.
 export interface AlertFilter {
   ids?: string[];
   sinceRevision?: number;
+  /** With sinceRevision: also every alert changed at or after this time. */
+  changedSince?: Date;
   openOnly?: boolean;
   sprayId?: string;
 }
@@ -23,7 +25,10 @@ export async function loadAlertDtos(ctx: AppContext, viewerOrgId: string, filter
   const { Alert, AlertEvent, AlertView, SprayPlanBlock } = ctx.models;
   const where: WhereOptions<Alert>[] = [{ [Op.or]: [{ farmId: viewerOrgId }, { apiaryId: viewerOrgId }] }];
   if (filter.ids) where.push({ id: filter.ids });
-  if (filter.sinceRevision !== undefined) where.push({ revision: { [Op.gt]: String(filter.sinceRevision) } });
+  if (filter.sinceRevision !== undefined) {
+    const newer: WhereOptions<Alert> = { revision: { [Op.gt]: String(filter.sinceRevision) } };
+    where.push(filter.changedSince ? { [Op.or]: [newer, { updatedAt: { [Op.gte]: filter.changedSince } }] } : newer);
+  }
   if (filter.openOnly) where.push({ state: { [Op.ne]: 'resolved' } });
   if (filter.sprayId) where.push({ sprayPlanId: filter.sprayId });
   const alerts = await Alert.findAll({

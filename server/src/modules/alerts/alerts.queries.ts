@@ -1,5 +1,5 @@
 // SQL the alert models cannot say well: the viewer's counts (latest revision, unseen open
-// alerts) and the transaction-scoped advisory lock that orders a re-check after the change
+// alerts), when its alerts up to a revision were last changed, and the transaction-scoped advisory lock that orders a re-check after the change
 // that asked for it. Bind parameters only.
 import type { Sequelize, Transaction } from 'sequelize';
 import { queryOne } from '../../db/query-rows.js';
@@ -13,6 +13,20 @@ export async function alertCounts(sequelize: Sequelize, orgId: string): Promise<
     { bind: { orgId } },
   );
   return { latest: row?.latest == null ? null : Number(row.latest), unseen: row?.unseen ?? 0 };
+}
+
+/**
+ * When the viewer's alerts up to this revision were last changed: revisions come from one
+ * sequence as transactions take them, and a transaction can commit after one that took a
+ * higher revision, so a catch-up reaches back from here (see alerts.service.ts).
+ */
+export async function changedUpTo(sequelize: Sequelize, orgId: string, revision: number): Promise<Date | null> {
+  const row = await queryOne<{ at: Date | null }>(
+    sequelize,
+    'SELECT max(a.updated_at) AS at FROM alerts a WHERE (a.farm_id = $orgId OR a.apiary_id = $orgId) AND a.revision <= $revision',
+    { bind: { orgId, revision } },
+  );
+  return row?.at ?? null;
 }
 
 /**

@@ -8,10 +8,13 @@ import { badRequest, notFound, wrongState } from '../../errors/http-errors.js';
 import { apiaryResponses, farmResponses, type AlertAnswer, type AlertDto, type AlertListDto, type AlertListQuery } from '../../../../shared/schemas/alerts.js';
 import { loadAlertDtos } from './alert-dtos.js';
 import { queueAlertPublication } from './alert-outbox.js';
-import { alertCounts } from './alerts.queries.js';
+import { alertCounts, changedUpTo } from './alerts.queries.js';
 import { pleaseCheck } from '../../../../shared/labels/fields.js';
 import { alertResponseSet } from '../../../../shared/labels/alerts.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
+
+/** How far before the held revision a catch-up reaches: longer than any save's transaction. */
+const catchUpReachMs = 10 * 60_000;
 
 function orgOf(user: AuthUser): string {
   if (!user.organizationId) throw notFound('That alert');
@@ -50,7 +53,12 @@ export function createAlertsService(ctx: AppContext) {
       // The latest revision is read before the alerts, so an alert changed in between is
       // sent again on the next catch-up rather than skipped.
       const counts = await alertCounts(ctx.sequelize, orgId);
-      const alerts = await loadAlertDtos(ctx, orgId, { sinceRevision: query.since, openOnly: query.state === 'open' });
+      // A catch-up also sends what changed shortly before the revision the client holds: a
+      // save that took a lower revision may have committed after that one (and its live
+      // publication missed a client that was away). Clients drop what they already hold.
+      const heldChangedAt = query.since !== undefined ? await changedUpTo(ctx.sequelize, orgId, query.since) : null;
+      const changedSince = heldChangedAt ? new Date(heldChangedAt.getTime() - catchUpReachMs) : undefined;
+      const alerts = await loadAlertDtos(ctx, orgId, { sinceRevision: query.since, changedSince, openOnly: query.state === 'open' });
       return { alerts, latestRevision: counts.latest ?? query.since ?? 0, unseen: counts.unseen };
     },
 
