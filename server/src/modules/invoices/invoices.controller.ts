@@ -1,17 +1,15 @@
-// Invoices over HTTP: a few lines each; the rules are in invoices.service and the reports service.
+// Invoices over HTTP: a few lines each; the rules (and telling the sockets of a change) are in
+// invoices.service and the reports service.
 import type { Request, Response } from 'express';
 import { currentUser } from '../../middleware/authenticate.js';
-import type { AppContext } from '../../context.js';
 import type { InvoicesService } from './invoices.service.js';
 import type { InvoiceReportsService } from './invoice-reports.service.js';
 import type { InvoiceListQuery } from '../../../../shared/schemas/invoices.js';
 import { renderInvoicePdf } from './invoice-pdf.js';
-import { publishInvoiceChange } from './invoice-events.js';
 
 const idOf = (req: Request) => String(req.params.id);
 
-export function createInvoicesController(ctx: AppContext, service: InvoicesService, reports: InvoiceReportsService) {
-  const changed = (id: string) => publishInvoiceChange(ctx, id);
+export function createInvoicesController(service: InvoicesService, reports: InvoiceReportsService) {
   return {
     async list(req: Request, res: Response) {
       res.json({ invoices: await service.list(currentUser(req), req.query as unknown as InvoiceListQuery) });
@@ -28,9 +26,7 @@ export function createInvoicesController(ctx: AppContext, service: InvoicesServi
       res.json({ agreements: await service.billableAgreements(currentUser(req)) });
     },
     async draft(req: Request, res: Response) {
-      const invoice = await service.draft(currentUser(req), req.body);
-      await changed(invoice.id);
-      res.status(201).json({ invoice });
+      res.status(201).json({ invoice: await service.draft(currentUser(req), req.body) });
     },
     async updateDraft(req: Request, res: Response) {
       res.json({ invoice: await service.updateDraft(currentUser(req), idOf(req), req.body) });
@@ -40,19 +36,13 @@ export function createInvoicesController(ctx: AppContext, service: InvoicesServi
       res.status(204).end();
     },
     async issue(req: Request, res: Response) {
-      const invoice = await service.issue(currentUser(req), idOf(req));
-      await changed(invoice.id);
-      res.json({ invoice });
+      res.json({ invoice: await service.issue(currentUser(req), idOf(req)) });
     },
     async voidInvoice(req: Request, res: Response) {
-      const invoice = await service.voidInvoice(currentUser(req), idOf(req), req.body);
-      await changed(invoice.id);
-      res.json({ invoice });
+      res.json({ invoice: await service.voidInvoice(currentUser(req), idOf(req), req.body) });
     },
     async addCreditNote(req: Request, res: Response) {
-      const invoice = await service.addCreditNote(currentUser(req), idOf(req), req.body);
-      await changed(invoice.id);
-      res.status(201).json({ invoice });
+      res.status(201).json({ invoice: await service.addCreditNote(currentUser(req), idOf(req), req.body) });
     },
     async receivables(req: Request, res: Response) {
       res.json(await reports.receivables(currentUser(req), (req.query as { season?: number }).season));

@@ -14,7 +14,7 @@ import { createInvoicesController } from './invoices.controller.js';
 const seasonQuery = invoiceListQuery.pick({ season: true });
 
 export function invoicesRoutes(ctx: AppContext): Router {
-  const c = createInvoicesController(ctx, createInvoicesService(ctx), createInvoiceReportsService(ctx));
+  const c = createInvoicesController(createInvoicesService(ctx), createInvoiceReportsService(ctx));
   const router = Router();
   router.get('/', allow(policy, 'read'), validate({ query: invoiceListQuery }), c.list);
   router.get('/export.csv', allow(policy, 'read'), c.exportCsv);

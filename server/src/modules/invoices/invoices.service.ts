@@ -12,6 +12,7 @@ import { takeNextNumber } from './invoice-numbers.js';
 import { toInvoiceSummary, formatCreditNoteNumber, refundedByPayment, refundedOf } from './invoice-summary.js';
 import { loadAgreement, priceAgreement, insertDraft, issueDraft } from './invoice-drafting.js';
 import { queueNames } from '../../jobs/queue-names.js';
+import { publishInvoiceChange } from './invoice-events.js';
 
 export function createInvoicesService(ctx: AppContext) {
   const { Invoice, InvoiceLine, CreditNote, Payment, Refund } = ctx.models;
@@ -79,6 +80,7 @@ export function createInvoicesService(ctx: AppContext) {
       if (err instanceof UniqueConstraintError) throw conflict('This agreement already has an invoice; void it before drafting another.', { agreementId: 'already invoiced' });
       throw err;
     }
+    await publishInvoiceChange(ctx, invoiceId);
     return detail(user, invoiceId);
   }
 
@@ -116,6 +118,7 @@ export function createInvoicesService(ctx: AppContext) {
     await issueDraft(ctx, id, user.organizationId, user.id, ctx.now());
     // The PDF and e-mail are made by a job, so issuing stays quick and survives a mail outage.
     await ctx.jobs.send(queueNames.invoiceEmail, { invoiceId: id });
+    await publishInvoiceChange(ctx, id);
     return detail(user, id);
   }
 
@@ -128,6 +131,7 @@ export function createInvoicesService(ctx: AppContext) {
       if (payments > 0) throw wrongState('This invoice has payments; correct it with a credit note (and refund) instead of voiding it.');
       await Invoice.update({ lifecycle: 'void', voidedAt: ctx.now(), voidReason: input.reason }, { where: { id }, transaction });
     });
+    await publishInvoiceChange(ctx, id);
     return detail(user, id);
   }
 
@@ -140,6 +144,7 @@ export function createInvoicesService(ctx: AppContext) {
       const number = await takeNextNumber(ctx.models, transaction, row.apiary_id, 'credit-note');
       await CreditNote.create({ invoiceId: id, apiaryId: row.apiary_id, number, amountCents: input.amountCents, reason: input.reason, createdBy: user.id }, { transaction });
     });
+    await publishInvoiceChange(ctx, id);
     return detail(user, id);
   }
 
