@@ -193,6 +193,17 @@ describe('the data layer', () => {
     expect.soft(stale, 'FILES_WITH_SQL_YET lists files without SQL now: remove them').toEqual([]);
   });
 
+  it('runs raw SQL through the one helper (server/src/db/query-rows.ts); only migrations call sequelize.query themselves', () => {
+    const serverDir = join(root, 'server/src');
+    const callers = filesUnder(serverDir)
+      .filter((f) => !f.endsWith('/db/query-rows.ts') && !f.includes('/db/migrations/'))
+      .filter((f) => /\.query\s*[<(]/.test(readFileSync(f, 'utf8').replace(/req\.query/g, '')))
+      .map((f) => relative(root, f));
+    expect(callers).toEqual([]);
+    // the check itself: the helper's own call is seen
+    expect(/\.query\s*[<(]/.test(readFileSync(join(serverDir, 'db/query-rows.ts'), 'utf8'))).toBe(true);
+  });
+
   it('has modules use each other in one direction only (no import cycle between feature modules)', () => {
     const graph = moduleImports();
     expect(graph.get('bloom')).toContain('blocks'); // the check sees imports at all
