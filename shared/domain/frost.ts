@@ -1,6 +1,7 @@
 // Frost risk to flower buds: a forecast low against the published critical temperatures
-// of the block's current stage (temperature held 30 minutes that kills about 10% / 90% of
-// buds; WSU Extension, as republished by Penn State Extension and Utah State Univ.).
+// of the stage the block is at on that low's day (temperature held 30 minutes that kills
+// about 10% / 90% of buds; WSU Extension, as republished by Penn State Extension and Utah
+// State Univ.).
 // The published values are the temperatures AT which 10% / 90% of buds die, so a low at
 // or below a value counts.
 
@@ -26,4 +27,25 @@ export function frostRisk(forecastLowC: number, critical: CriticalTemperature): 
 /** The coldest of the forecast lows (the first such day on a tie), or null without lows. */
 export function coldestLow<T extends { day: string; lowC: number }>(lows: readonly T[]): T | null {
   return [...lows].sort((a, b) => a.lowC - b.lowC || a.day.localeCompare(b.day))[0] ?? null;
+}
+
+const riskOrder: Record<FrostRisk, number> = { none: 0, damage: 1, severe: 2 };
+
+/**
+ * The worst of the forecast lows, each judged against the critical temperatures of the stage
+ * the block is at on that low's own day (null before the first stage): buds grow less hardy
+ * as the stages pass, so a low a few days out can hurt the stage reached by then though it
+ * would spare today's. The most severe risk wins, then the earlier day; null when no low
+ * reaches its day's critical temperatures.
+ */
+export function worstFrost<C extends CriticalTemperature>(
+  lows: ReadonlyArray<{ day: string; lowC: number; critical: C | null }>,
+): { day: string; lowC: number; critical: C; risk: Exclude<FrostRisk, 'none'> } | null {
+  let worst: { day: string; lowC: number; critical: C; risk: Exclude<FrostRisk, 'none'> } | null = null;
+  for (const { day, lowC, critical } of [...lows].sort((a, b) => a.day.localeCompare(b.day))) {
+    if (!critical) continue;
+    const risk = frostRisk(lowC, critical);
+    if (risk !== 'none' && (!worst || riskOrder[risk] > riskOrder[worst.risk])) worst = { day, lowC, critical, risk };
+  }
+  return worst;
 }

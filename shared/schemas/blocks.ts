@@ -140,7 +140,7 @@ export interface BlockForecastDto {
   cumulativeToDate: number;
   /** The critical bud temperatures of the current stage: the degree-day stage, the table row used, and their sources. */
   frostCritical: FrostCriticalForStage | null;
-  /** A forecast low at or below the current stage's critical temperatures. */
+  /** The worst forecast low at or below the critical temperatures of the stage predicted for its day, naming that stage. */
   frost: null | (FrostCriticalForStage & { risk: Exclude<FrostRisk, 'none'>; day: string; lowC: number });
   /** Why no forecast could be made (no station, no thresholds for the crop ...). */
   notes: string[];

@@ -1,7 +1,8 @@
 // Bloom forecasts and windows: degree days from a station's temperatures give predicted
-// stages and a suggested window; a forecast low below the stage's critical temperature
-// raises a frost warning; every window revision is kept in order, sent live to the farm
-// and to apiaries following the block (not to others), and gathered into an e-mail digest.
+// stages and a suggested window; a forecast low at or below the critical temperature of
+// the stage predicted for its day raises a frost warning; every window revision is kept
+// in order, sent live to the farm and to apiaries following the block (not to others),
+// and gathered into an e-mail digest.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import request from 'supertest';
 import { io as connect, type Socket } from 'socket.io-client';
@@ -135,18 +136,37 @@ describe('bloom forecasts and windows', () => {
     expect(bad.body.error.fields.upperF).toBeTruthy();
   });
 
-  it('warns of frost when a forecast low is below the current stage\'s critical temperature', async () => {
-    // First pink, apple: 10% kill 28 °F (-2.2 °C), 90% kill 24 °F (-4.4 °C) — WSU EB0913 via Penn State Extension.
+  it('warns of frost when a forecast low is at or below the critical temperature of the stage predicted for its day', async () => {
+    // 320 DD°F by 20 March, then 16 a day (estimated): bloom (330) from 21 March. Apple full pink to full bloom:
+    // 10% kill 28 °F (-2.2 °C), 90% kill 25 °F (-3.9 °C) — WSU EB0913 via Penn State Extension.
     await buildForecastLow({ station: { id: stationId }, day: '2027-03-22', lowC: -2.0 });
     expect((await grower.get(`/api/blocks/${blockId}/forecast`).expect(200)).body.forecast.frost).toBeNull();
     const entered = await grower.put(`/api/weather/stations/${stationId}/forecast-lows/2027-03-23`, { low: 27, unit: 'F' });
     expect(entered.status).toBe(200);
     const warned = (await grower.get(`/api/blocks/${blockId}/forecast`).expect(200)).body.forecast as BlockForecastDto;
-    expect(warned.frost).toMatchObject({ risk: 'damage', day: '2027-03-23', stageLabel: 'First pink' });
+    expect(warned.frost).toMatchObject({ risk: 'damage', day: '2027-03-23', stage: 'bloom', stageLabel: 'Full pink to full bloom' });
     expect(warned.frost!.kill10C).toBeCloseTo(-2.222, 2);
     await grower.put(`/api/weather/stations/${stationId}/forecast-lows/2027-03-24`, { low: -5, unit: 'C' }).expect(200);
     const severe = (await grower.get(`/api/blocks/${blockId}/forecast`).expect(200)).body.forecast as BlockForecastDto;
     expect(severe.frost).toMatchObject({ risk: 'severe', day: '2027-03-24' });
+  });
+
+  it('warns of a low a few days ahead that spares today\'s tight cluster but hurts the pink stage reached by then', async () => {
+    const station = (await buildStation({ farm: { id: farmId }, name: 'Marrowdene east slope' })).id;
+    await buildDailyTemperatures({ station: { id: station }, days: march });
+    // Counted from 6 March at 16 DD°F a day: 240 by 20 March (tight cluster, 200–260, from memory), 256 on the
+    // 21st, 272 on the 22nd (pink, from 267 — Cornell / UMass fruit newsletters).
+    const block = await grower.post('/api/blocks', { name: 'East slope apples', crop: 'apple', enteredAcres: 5, weatherStationId: station, degreeDayStart: '2027-03-06' }).expect(201);
+    await grower.put(`/api/weather/stations/${station}/forecast-lows/2027-03-21`, { low: 28, unit: 'F' }).expect(200);
+    await grower.put(`/api/weather/stations/${station}/forecast-lows/2027-03-22`, { low: 28, unit: 'F' }).expect(200);
+    const f = (await grower.get(`/api/blocks/${block.body.block.id}/forecast`).expect(200)).body.forecast as BlockForecastDto;
+    // Source: WSU Extension EB0913 (apple, Red Delicious) via Penn State Extension "Orchard Frost – Critical
+    // Temperatures for Various Fruits": tight cluster 10% kill 27 °F, first pink 10% kill 28 °F.
+    expect(f.frostCritical).toMatchObject({ stage: 'tight-cluster', stageLabel: 'Tight cluster' });
+    expect(f.frost).toMatchObject({ risk: 'damage', day: '2027-03-22', stage: 'pink', stageName: 'Pink', stageLabel: 'First pink' });
+    expect(f.frost!.kill10C).toBeCloseTo(-2.222, 2);
+    expect(f.frost!.source).toMatch(/WSU Extension/);
+    expect(f.frost!.stageSource).toMatch(/Cornell/);
   });
 
   it('gives apple, pear and sweet cherry blocks frost risk at their own stage, a low at the critical value counting', async () => {
@@ -164,10 +184,11 @@ describe('bloom forecasts and windows', () => {
     // Source: WSU Extension EB0978 (pear, Bartlett) via Penn State Extension: first bloom 27 °F / 23 °F.
     expect(calm.frostCritical).toMatchObject({ stage: 'bloom', stageName: 'First bloom', stageLabel: 'First bloom' });
     expect(calm.frostCritical!.kill90C).toBeCloseTo(-5, 6);
-    // 28 °F exactly: WSU lists 28 °F as the 10% kill temperature of apple first pink and sweet cherry full bloom.
-    await grower.put(`/api/weather/stations/${station}/forecast-lows/2027-03-22`, { low: 28, unit: 'F' }).expect(200);
+    // 28 °F exactly, tonight (20 March, so each block's stage today applies): WSU lists 28 °F as the 10% kill
+    // temperature of apple first pink and sweet cherry full bloom.
+    await grower.put(`/api/weather/stations/${station}/forecast-lows/2027-03-20`, { low: 28, unit: 'F' }).expect(200);
     const apple = await forecastOf('apple');
-    expect(apple.frost).toMatchObject({ risk: 'damage', stage: 'pink', stageName: 'Pink', stageLabel: 'First pink', day: '2027-03-22' });
+    expect(apple.frost).toMatchObject({ risk: 'damage', stage: 'pink', stageName: 'Pink', stageLabel: 'First pink', day: '2027-03-20' });
     expect(apple.frost!.source).toMatch(/WSU Extension/);
     expect(apple.frost!.stageSource).toMatch(/Cornell/);
     const cherry = await forecastOf('sweet-cherry');

@@ -1,7 +1,7 @@
 // Frost risk at every stage: the published critical bud temperatures, a stage path that
 // reaches every row of each crop's table, and a low at the critical value counting.
 import { describe, it, expect } from 'vitest';
-import { coldestLow, frostRisk } from '../../shared/domain/frost.js';
+import { coldestLow, frostRisk, worstFrost } from '../../shared/domain/frost.js';
 import { currentStage, type StageThreshold } from '../../shared/domain/bloom-forecast.js';
 import { fahrenheitToCelsius } from '../../shared/domain/units.js';
 import { frostRows, stageRows } from '../../server/src/modules/bloom/published-reference.js';
@@ -36,6 +36,21 @@ describe('frostRisk', () => {
 
   it('refuses a low that is not a number', () => {
     expect(() => frostRisk(Number.NaN, bloom)).toThrow(RangeError);
+  });
+
+  it('judges each low at its own day\'s stage: 28 °F spares tight cluster but damages first pink', () => {
+    // Source: WSU Extension EB0913 (apple, Red Delicious) via Penn State Extension: tight cluster 27/21 °F,
+    // first pink 28/24 °F.
+    const tightCluster = critical(27, 21);
+    const firstPink = critical(28, 24);
+    const lows = [
+      { day: '2027-04-02', lowC: fahrenheitToCelsius(28), critical: firstPink },
+      { day: '2027-04-01', lowC: fahrenheitToCelsius(28), critical: tightCluster },
+      { day: '2027-04-03', lowC: fahrenheitToCelsius(20), critical: null }, // no stage known that day
+    ];
+    expect(worstFrost(lows)).toMatchObject({ day: '2027-04-02', risk: 'damage', critical: firstPink });
+    expect(worstFrost([...lows, { day: '2027-04-04', lowC: fahrenheitToCelsius(24), critical: firstPink }])).toMatchObject({ day: '2027-04-04', risk: 'severe' });
+    expect(worstFrost(lows.slice(1))).toBeNull();
   });
 
   it('finds the coldest forecast low, the earlier day on a tie', () => {

@@ -2,14 +2,15 @@
 // date (or biofix), the season's curve extended by normals, the predicted date of each
 // crop stage with the range its thresholds imply, a suggested bloom window, the current
 // stage with its critical bud temperatures, and a frost warning when a forecast low is at
-// or below them (naming the stage, the table row and both sources).
+// or below those of the stage predicted for its day (naming the stage, the table row and
+// both sources).
 import { DateTime } from 'luxon';
 import { badRequest } from '../../errors/http-errors.js';
 import type { AppContext } from '../../context.js';
-import type { BlockForecastDto, ForecastQuery } from '../../../../shared/schemas/blocks.js';
+import type { BlockForecastDto, ForecastQuery, FrostCriticalForStage } from '../../../../shared/schemas/blocks.js';
 import { accumulateDegreeDays } from '../../../../shared/domain/degree-days.js';
-import { currentStage, predictStages, suggestBloomWindow } from '../../../../shared/domain/bloom-forecast.js';
-import { coldestLow, frostRisk } from '../../../../shared/domain/frost.js';
+import { currentStage, predictStages, suggestBloomWindow, type StageThreshold } from '../../../../shared/domain/bloom-forecast.js';
+import { worstFrost } from '../../../../shared/domain/frost.js';
 import { fahrenheitToCelsius } from '../../../../shared/domain/units.js';
 import type { BlocksService } from '../blocks/blocks.service.js';
 import type { StationsService } from '../weather/stations.service.js';
@@ -49,22 +50,36 @@ export function createForecastService(ctx: AppContext, deps: { blocks: BlocksSer
       const cumulativeToDate = accumulated.filter((d) => !d.estimated && d.day <= today).at(-1)?.cumulative ?? 0;
       const stage = currentStage(cumulativeToDate, stageThresholds);
 
-      let frost: BlockForecastDto['frost'] = null;
-      let frostCritical: BlockForecastDto['frostCritical'] = null;
-      if (stage) {
-        const critical = await deps.thresholds.frostForStage(block.crop, stage.stage);
-        const stageSource = thresholds.find((t) => t.stage === stage.stage)?.source ?? '';
-        if (critical) {
-          const kill10C = fahrenheitToCelsius(critical.kill10F);
-          const kill90C = fahrenheitToCelsius(critical.kill90F);
-          frostCritical = { stage: stage.stage, stageName: stage.label, stageSource, stageLabel: critical.stageLabel, kill10C, kill90C, source: critical.source };
-          if (station) {
-            const until = DateTime.fromISO(today).plus({ days: FROST_LOOKAHEAD_DAYS }).toISODate()!;
-            const coldest = coldestLow((await deps.stations.forecastLows(farmId, station.id, today)).filter((l) => l.day <= until));
-            const risk = coldest ? frostRisk(coldest.lowC, { kill10C, kill90C }) : 'none';
-            if (coldest && risk !== 'none') frost = { ...frostCritical, risk, day: coldest.day, lowC: coldest.lowC };
-          }
+      // Each stage's critical bud temperatures, loaded once per stage asked for.
+      const criticalByStage = new Map<string, FrostCriticalForStage | null>();
+      const criticalFor = async (at: StageThreshold): Promise<FrostCriticalForStage | null> => {
+        if (!criticalByStage.has(at.stage)) {
+          const row = await deps.thresholds.frostForStage(block.crop, at.stage);
+          const stageSource = thresholds.find((t) => t.stage === at.stage)?.source ?? '';
+          criticalByStage.set(at.stage, row && {
+            stage: at.stage, stageName: at.label, stageSource, stageLabel: row.stageLabel,
+            kill10C: fahrenheitToCelsius(row.kill10F), kill90C: fahrenheitToCelsius(row.kill90F), source: row.source,
+          });
         }
+        return criticalByStage.get(at.stage)!;
+      };
+      const frostCritical: BlockForecastDto['frostCritical'] = stage ? await criticalFor(stage) : null;
+
+      // Each forecast low is judged at the stage predicted for its own day (degree days on that
+      // day, observed or estimated), never earlier than today's: a block moving from tight cluster
+      // to pink within the lookahead is warned of a low that only the later stage fears.
+      let frost: BlockForecastDto['frost'] = null;
+      if (station) {
+        const until = DateTime.fromISO(today).plus({ days: FROST_LOOKAHEAD_DAYS }).toISODate()!;
+        const lows = (await deps.stations.forecastLows(farmId, station.id, today)).filter((l) => l.day <= until);
+        const judged = [];
+        for (const low of lows) {
+          const onDay = Math.max(cumulativeToDate, accumulated.find((d) => d.day === low.day)?.cumulative ?? 0);
+          const stageOnDay = currentStage(onDay, stageThresholds);
+          judged.push({ ...low, critical: stageOnDay ? await criticalFor(stageOnDay) : null });
+        }
+        const worst = worstFrost(judged);
+        if (worst) frost = { ...worst.critical, risk: worst.risk, day: worst.day, lowC: worst.lowC };
       }
 
       return {
