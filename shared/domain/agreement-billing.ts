@@ -8,8 +8,12 @@
 //   (the sampled share applied to the group, half up, never more than were delivered);
 //   at a reduced rate of 0 those colonies are not charged, and the clause says so.
 // - Extra moves: a fee per move the grower asks for, whatever the number of colonies moved.
-// - Deposit: due on the later of the first delivery day and the invoice's issue date plus
-//   the agreement's payment days, so an invoice is never overdue on the day it is issued.
+// - Deposit: the agreed share of the invoice total (colonies, extra moves and tax), not of
+//   the colonies' fee alone: "half at delivery, balance within N days" (UF/IFAS EDIS Sample
+//   Pollination Agreement 2015) splits the bill into two payments that add up to it, which is
+//   how growers pay it. Due on the later of the first delivery day and the invoice's issue
+//   date plus the agreement's payment days, so an invoice is never overdue on the day it is
+//   issued.
 import { DateTime } from 'luxon';
 
 export interface StrengthSample {
@@ -60,7 +64,7 @@ export function depositDueOn(firstDeliveryDay: string, issuedOn: string | null, 
 }
 
 export function feeClauseText(t: { pricePerColonyCents: number; currency: string; depositShareBp: number; balanceDueDays: number; lateInterestBpPerMonth: number }): string {
-  return `The fee is ${money(t.pricePerColonyCents, t.currency)} per colony set down. ${percent(t.depositShareBp)} of the fee is due on the day of the first delivery, `
+  return `The fee is ${money(t.pricePerColonyCents, t.currency)} per colony set down. ${percent(t.depositShareBp)} of the invoice total (colonies, extra moves and tax) is due on the day of the first delivery, `
     + `or ${t.balanceDueDays} days after the invoice is issued if that is later; the balance is due within ${t.balanceDueDays} days of pickup. `
     + `Unpaid amounts carry interest of ${percent(t.lateInterestBpPerMonth)} per month after their due date.`;
 }

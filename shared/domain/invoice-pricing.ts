@@ -9,7 +9,8 @@
 //   least 10% of colonies, PA Dept. of Agriculture / Rutgers).
 // - Extra moves at the agreed fee per move (agreement-billing.ts). Tax at the billing
 //   business's rate on the subtotal.
-// - Deposit share due on the later of the first delivery day and the issue date plus the
+// - Deposit: the agreed share of the total (colonies, extra moves and tax), as the fee
+//   clause words it, due on the later of the first delivery day and the issue date plus the
 //   agreement's days (agreement-billing.ts); balance due N days after the last pickup
 //   (unknown until every delivered placement is picked up).
 // - Late interest: SIMPLE interest per STARTED month on the amount overdue, from the day

@@ -1,5 +1,5 @@
-// The agreement's own words price the invoice: strength shortfall, extra moves and the
-// deposit due date are each one rule, stated in the clause and applied by the invoice.
+// The agreement's own words price the invoice: strength shortfall, extra moves, the deposit
+// share and its due date are each one rule, stated in the clause and applied by the invoice.
 import { describe, it, expect } from 'vitest';
 import { agreementClauses, type ClauseTerms } from '../../shared/domain/agreement-clauses.js';
 import { coloniesAtReducedRate, depositDueOn, groupMeetsStrength } from '../../shared/domain/agreement-billing.js';
@@ -80,9 +80,26 @@ describe('extra moves: the clause and the invoice', () => {
   });
 });
 
+describe('deposit share: the clause and the invoice', () => {
+  it('says the deposit is a share of the invoice total, and the invoice takes that share of the total', () => {
+    // Half at delivery, the balance later (UF/IFAS EDIS "Sample Pollination Agreement" 2015): two payments that add
+    // up to the bill. 7.25% tax is an example rate. 40 x $65.00 = $2,600.00, 3 moves x $25.00 = $75.00,
+    // subtotal $2,675.00, tax $193.94 (193.9375 half up), total $2,868.94, deposit 50% = $1,434.47.
+    const share = /(\d+(?:\.\d+)?)% of the invoice total \(colonies, extra moves and tax\) is due/.exec(clause('fee'));
+    expect(share).not.toBeNull();
+    const priced = priceInvoice({
+      terms: { ...terms, depositShareBp: Number(share![1]) * 100 }, taxRateBp: 725, timeZone: zone, extraMoves: 3,
+      placements: [{ placementId: 'p', coloniesDelivered: 40, deliveredAt: delivered, pickedUpAt: null, strengthCheck: null }],
+    });
+    expect(priced.totalCents).toBe(286_894);
+    expect(priced.depositCents).toBe(143_447);
+    expect(priced.balanceCents).toBe(143_447);
+  });
+});
+
 describe('deposit due date: the clause and the invoice', () => {
   it('says the deposit is due at the first delivery or the issue date plus the agreement\'s days, whichever is later', () => {
-    expect(clause('fee')).toMatch(/50% of the fee is due on the day of the first delivery, or 30 days after the invoice is issued if that is later/);
+    expect(clause('fee')).toMatch(/is due on the day of the first delivery, or 30 days after the invoice is issued if that is later/);
   });
 
   it('is the delivery day for an invoice issued well before it, and issue day + 30 for one issued after', () => {
