@@ -3,7 +3,7 @@
 // the core tables so every feature's tests and the seed can use them.
 import { QueryTypes, type Sequelize } from 'sequelize';
 import type { GeoPolygon } from '../../../shared/schemas/common.js';
-import { builderSequelize } from './builder-database.js';
+import { builderModels, builderSequelize } from './builder-database.js';
 
 const SQUARE_METRES_PER_ACRE = 4046.8564224;
 
@@ -174,14 +174,12 @@ export async function buildPlacement(attrs: {
 }
 
 export async function buildStrengthCheck(attrs: { placement: Id; coloniesInGroup: number; framesOfBees: number[]; framesOfBrood?: number[] | null; checkedAt?: Date; checkedBy?: Id | null }) {
-  return insert<{ id: string }>(
-    `INSERT INTO strength_checks (placement_id, checked_at, checked_by, colonies_in_group, frames_of_bees, frames_of_brood)
-     VALUES (:placementId, :checkedAt, :checkedBy, :group, :bees::double precision[], :brood::double precision[]) RETURNING id`,
-    {
-      placementId: attrs.placement.id, checkedAt: (attrs.checkedAt ?? new Date()).toISOString(), checkedBy: attrs.checkedBy?.id ?? null,
-      group: attrs.coloniesInGroup, bees: `{${attrs.framesOfBees.join(',')}}`, brood: attrs.framesOfBrood ? `{${attrs.framesOfBrood.join(',')}}` : null,
-    },
-  );
+  // The model writes the frame counts as a double precision[] itself.
+  const check = await builderModels().StrengthCheck.create({
+    placementId: attrs.placement.id, checkedAt: attrs.checkedAt ?? new Date(), checkedBy: attrs.checkedBy?.id ?? null, inspectorName: null,
+    coloniesInGroup: attrs.coloniesInGroup, framesOfBees: attrs.framesOfBees, framesOfBrood: attrs.framesOfBrood ?? null, notes: null, recordedAt: null,
+  });
+  return { id: check.id };
 }
 
 /**
