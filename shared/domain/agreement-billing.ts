@@ -38,11 +38,16 @@ export function coloniesAtReducedRate(check: StrengthSample | null, minFramesOfB
   return Math.min(Math.round((below / check.framesOfBees.length) * check.coloniesInGroup), coloniesDelivered);
 }
 
+/** What short colonies of a failing group are charged, in the words both the clause and the invoice line use. */
+export function reducedRateWording(belowMinimumRateBp: number): string {
+  return belowMinimumRateBp > 0 ? `paid at ${percent(belowMinimumRateBp)} of the fee` : 'not charged';
+}
+
 export function shortfallClauseText(t: { minFramesOfBees: number; belowMinimumRateBp: number }): string {
   return `A checked group whose sample averages at least ${t.minFramesOfBees} frames of bees meets the agreed strength and is paid in full, `
     + `even if some colonies in it are below ${t.minFramesOfBees} frames. A group whose sample averages fewer than ${t.minFramesOfBees} frames of bees does not: `
     + `the share of its sampled colonies below ${t.minFramesOfBees} frames, applied to the colonies in the group and rounded to the nearest colony, `
-    + (t.belowMinimumRateBp > 0 ? `is paid at ${percent(t.belowMinimumRateBp)} of the fee.` : 'is not charged.');
+    + `is ${reducedRateWording(t.belowMinimumRateBp)}.`;
 }
 
 export function extraMovesAmountCents(moves: number, feeCents: number): number {

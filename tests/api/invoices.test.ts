@@ -46,6 +46,8 @@ describe('invoices API', () => {
     // shortfall is not made up); 5 of 10 sampled under 6 frames -> 20 of 40 below minimum (PA Dept. of Agriculture / Rutgers sampling).
     // 20 x $65.00 = $1,300.00; 20 x $32.50 = $650.00; 1 move x $25.00 = $25.00; subtotal $1,975.00.
     expect(invoice.lines.map((l: { quantity: number; amountCents: number }) => [l.quantity, l.amountCents])).toEqual([[20, 130_000], [20, 65_000], [1, 2_500]]);
+    // The short colonies' line reads as the agreement's shortfall clause does (common practice, no source).
+    expect(invoice.lines[1].description).toMatch(/estimated from the strength check; paid at 50% of the fee\)$/);
     expect(invoice.subtotalCents).toBe(197_500);
     // Tax 7.25% of $1,975.00 = $143.1875 -> $143.19 (half up); total $2,118.19; deposit 50% = $1,059.095 -> $1,059.10.
     expect(invoice.taxCents).toBe(14_319);

@@ -2,7 +2,7 @@
 // share and its due date are each one rule, stated in the clause and applied by the invoice.
 import { describe, it, expect } from 'vitest';
 import { agreementClauses, type ClauseTerms } from '../../shared/domain/agreement-clauses.js';
-import { coloniesAtReducedRate, depositDueOn, groupMeetsStrength } from '../../shared/domain/agreement-billing.js';
+import { coloniesAtReducedRate, depositDueOn, groupMeetsStrength, reducedRateWording } from '../../shared/domain/agreement-billing.js';
 import { priceInvoice } from '../../shared/domain/invoice-pricing.js';
 
 const zone = 'America/Los_Angeles';
@@ -69,6 +69,16 @@ describe('strength shortfall at a reduced rate of 0: the clause and the invoice'
     });
     expect(priced.lines.map((l) => [l.kind, l.quantity, l.unitCents])).toEqual([['colonies-full-rate', 20, 6500], ['colonies-below-minimum', 20, 0]]);
     expect(priced.totalCents).toBe(130_000);
+  });
+});
+
+describe('short colonies: one wording for the clause and the invoice line', () => {
+  it('says "paid at 50% of the fee" or "not charged" in both, as the rate is', () => {
+    // Common practice, no source: the agreement and the invoice line must read the same (the rate is example terms).
+    expect(reducedRateWording(5000)).toBe('paid at 50% of the fee');
+    expect(reducedRateWording(0)).toBe('not charged');
+    expect(clause('below-minimum')).toContain(`is ${reducedRateWording(5000)}.`);
+    expect(agreementClauses({ ...terms, belowMinimumRateBp: 0 }).find((c) => c.key === 'below-minimum')!.text).toContain(`is ${reducedRateWording(0)}.`);
   });
 });
 

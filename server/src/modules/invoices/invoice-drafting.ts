@@ -3,7 +3,7 @@
 // use them directly so they describe the same invoices.
 import type { Sequelize, Transaction } from 'sequelize';
 import { DateTime } from 'luxon';
-import { depositDueOn } from '../../../../shared/domain/agreement-billing.js';
+import { depositDueOn, reducedRateWording } from '../../../../shared/domain/agreement-billing.js';
 import type { Models } from '../../db/models/index.js';
 import { priceInvoice, type PricedLine, type PlacementToPrice } from '../../../../shared/domain/invoice-pricing.js';
 import { notFound, wrongState } from '../../errors/http-errors.js';
@@ -27,7 +27,7 @@ function describeLine(line: PricedLine, placements: PlacementToBillRow[], agreem
   const where = p ? `${p.site_name}, ${p.block_name}` : '';
   if (line.kind === 'colonies-full-rate') return `Colonies placed at ${where}`;
   if (line.kind === 'colonies-below-minimum') {
-    return `Colonies below ${agreement.min_frames_of_bees} frames of bees at ${where} (estimated from the strength check; charged at ${agreement.below_minimum_rate_bp / 100}%)`;
+    return `Colonies below ${agreement.min_frames_of_bees} frames of bees at ${where} (estimated from the strength check; ${reducedRateWording(agreement.below_minimum_rate_bp)})`;
   }
   return 'Extra moves';
 }
