@@ -136,14 +136,14 @@ export async function buildAgreement(attrs: { commitment: Id; state?: 'awaiting-
        min_frames_of_brood, expected_on_site, notice_hours, deposit_share_bp, balance_due_days, late_interest_bp_per_month, below_minimum_rate_bp,
        extra_move_fee_cents, farm_confirmed_by, farm_confirmed_at, apiary_confirmed_by, apiary_confirmed_at)
      SELECT c.id, r.id, r.farm_id, c.apiary_id, :state, c.colonies, coalesce(c.proposed_price_cents, r.price_per_colony_cents), r.currency,
-       r.min_frames_of_bees, r.min_frames_of_brood, coalesce(:onSite::tstzrange, r.expected_on_site), r.notice_hours, r.deposit_share_bp,
+       r.min_frames_of_bees, r.min_frames_of_brood, CASE WHEN :onSiteFrom::timestamptz IS NULL THEN r.expected_on_site ELSE tstzrange(:onSiteFrom::timestamptz, :onSiteTo::timestamptz, '[)') END, r.notice_hours, r.deposit_share_bp,
        r.balance_due_days, r.late_interest_bp_per_month, r.below_minimum_rate_bp, r.extra_move_fee_cents,
        :farmBy, CASE WHEN :signed THEN now() END, :apiaryBy, CASE WHEN :signed THEN now() END
      FROM commitments c JOIN hive_requests r ON r.id = c.request_id WHERE c.id = :commitmentId
      RETURNING id, farm_id, apiary_id`,
     {
       commitmentId: attrs.commitment.id, state, signed,
-      onSite: attrs.onSite ? `[${attrs.onSite.from.toISOString()},${attrs.onSite.to.toISOString()})` : null,
+      onSiteFrom: attrs.onSite?.from.toISOString() ?? null, onSiteTo: attrs.onSite?.to.toISOString() ?? null,
       farmBy: attrs.farmConfirmedBy?.id ?? null, apiaryBy: attrs.apiaryConfirmedBy?.id ?? null,
     },
   );
