@@ -11,10 +11,7 @@ export interface OutgoingEmail {
 }
 
 export function createMailer(config: Config) {
-  // Pooled: a burst of alert e-mails reuses a few connections instead of one each.
   const transport = nodemailer.createTransport({
-    pool: true,
-    maxConnections: 2,
     host: config.mail.host,
     port: config.mail.port,
     secure: false,
