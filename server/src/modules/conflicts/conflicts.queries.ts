@@ -79,9 +79,11 @@ const searchSql = `
     SELECT x.drop_site_id, a.id AS agreement_id, a.state AS agreement_state, a.apiary_id, a.notice_hours,
       sum(x.colonies) AS colonies, bool_or(x.placed) AS placed, bool_or(x.during_spray) AS during_spray
     FROM placed x
-    JOIN agreements a ON a.id = x.agreement_id
+    -- Each agreement looked up by its key (OFFSET 0 keeps the lookup apart): in a dense season
+    -- the planner would otherwise read the whole agreements table into a hash.
+    CROSS JOIN LATERAL (SELECT a.id, a.state, a.apiary_id, a.notice_hours FROM agreements a WHERE a.id = x.agreement_id OFFSET 0) a
     WHERE x.placed OR a.state IN ('awaiting-signatures', 'in-force')
-    GROUP BY x.drop_site_id, a.id
+    GROUP BY x.drop_site_id, a.id, a.state, a.apiary_id, a.notice_hours
     UNION ALL
     -- Agreed but not yet scheduled: the agreement's window at its request's drop sites.
     SELECT n.id, u.id, u.state, u.apiary_id, u.notice_hours, least(u.colonies, n.colonies_planned), false, u.during_spray
