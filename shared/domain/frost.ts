@@ -24,11 +24,6 @@ export function frostRisk(forecastLowC: number, critical: CriticalTemperature): 
   return 'none';
 }
 
-/** The coldest of the forecast lows (the first such day on a tie), or null without lows. */
-export function coldestLow<T extends { day: string; lowC: number }>(lows: readonly T[]): T | null {
-  return [...lows].sort((a, b) => a.lowC - b.lowC || a.day.localeCompare(b.day))[0] ?? null;
-}
-
 const riskOrder: Record<FrostRisk, number> = { none: 0, damage: 1, severe: 2 };
 
 /**

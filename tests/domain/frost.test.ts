@@ -1,7 +1,7 @@
 // Frost risk at every stage: the published critical bud temperatures, a stage path that
 // reaches every row of each crop's table, and a low at the critical value counting.
 import { describe, it, expect } from 'vitest';
-import { coldestLow, frostRisk, worstFrost } from '../../shared/domain/frost.js';
+import { frostRisk, worstFrost } from '../../shared/domain/frost.js';
 import { currentStage, type StageThreshold } from '../../shared/domain/bloom-forecast.js';
 import { fahrenheitToCelsius } from '../../shared/domain/units.js';
 import { frostRows, stageRows } from '../../server/src/modules/bloom/published-reference.js';
@@ -51,11 +51,6 @@ describe('frostRisk', () => {
     expect(worstFrost(lows)).toMatchObject({ day: '2027-04-02', risk: 'damage', critical: firstPink });
     expect(worstFrost([...lows, { day: '2027-04-04', lowC: fahrenheitToCelsius(24), critical: firstPink }])).toMatchObject({ day: '2027-04-04', risk: 'severe' });
     expect(worstFrost(lows.slice(1))).toBeNull();
-  });
-
-  it('finds the coldest forecast low, the earlier day on a tie', () => {
-    expect(coldestLow([{ day: '2027-04-02', lowC: -3 }, { day: '2027-04-01', lowC: -3 }, { day: '2027-04-03', lowC: 1 }])).toEqual({ day: '2027-04-01', lowC: -3 });
-    expect(coldestLow([])).toBeNull();
   });
 });
 
