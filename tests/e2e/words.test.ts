@@ -1,7 +1,7 @@
 // Every demo role walks its pages in Chromium (each navigation entry, the first record of each
 // list, the preferences dialog) and no visible text reads like a code: no stored state code
 // with a hyphen, no camelCase key, no "cents", no raw ISO timestamp. The grower's and the
-// beekeeper's main pages are kept as screenshots at desktop and phone width.
+// beekeeper's main pages are kept as screenshots at desktop width (on the walk) and phone width.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
@@ -87,6 +87,22 @@ describe('words on every page, for every demo role', () => {
     for (const found of await codeLikeText(page)) problems.push(`${where}: ${found}`);
   }
 
+  const mainPages = {
+    grower: ['/', '/blocks', '/sprays', '/requests', '/agreements', '/placements', '/alerts', '/invoices', '/season/timeline', '/season/map'],
+    beekeeper: ['/', '/requests', '/agreements', '/placements', '/yards', '/alerts', '/invoices', '/season/timeline', '/season/map'],
+  };
+
+  /**
+   * Keeps a screenshot of a main page at the window's width, after checking that nothing is
+   * wider than the window.
+   */
+  async function keepScreenshot(page: Page, role: string, path: string, size: string) {
+    await page.evaluate(() => document.fonts.ready);
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow, `${role} ${path} at ${size} width is wider than the window`).toBeLessThanOrEqual(1);
+    await saveScreenshot(page, `words-${role}-${path === '/' ? 'home' : path.slice(1).replace(/\//g, '-')}-${size}`);
+  }
+
   for (const role of roles) {
     it(`${role.name}: no code-like words on any page or dialog`, { timeout: 360_000 }, async () => {
       const { page, consoleErrors, externalRequests } = await openWatchedPage(browser);
@@ -98,8 +114,16 @@ describe('words on every page, for every demo role', () => {
       expect(entries.length).toBeGreaterThan(1);
       const problems: string[] = [];
 
+      // The grower's and the beekeeper's main pages are kept at desktop width on the way.
+      const shots: string[] = role.screenshots ? [...mainPages[role.name as keyof typeof mainPages]] : [];
+      const shoot = async (path: string) => {
+        if (!shots.includes(path)) return;
+        shots.splice(shots.indexOf(path), 1);
+        await keepScreenshot(page, role.name, path, 'desktop');
+      };
       for (const entry of entries) {
         if (new URL(page.url()).pathname !== entry.path) await follow(page, `nav[aria-label="Main"] a[data-nav="${entry.name}"]`, entry.path);
+        await shoot(entry.path);
         if (entry.name === 'season-timeline') await page.getByText('Timeline as a list').click();
         await check(page, entry.path, problems);
         const recordPath = firstRecord[entry.name];
@@ -111,6 +135,12 @@ describe('words on every page, for every demo role', () => {
             await check(page, record, problems);
           }
         }
+      }
+
+      for (const path of [...shots]) {
+        await page.goto(`${t.baseUrl}${path}`);
+        await settled(page);
+        await shoot(path);
       }
 
       // The preferences dialog, from the top bar's account menu.
@@ -126,25 +156,16 @@ describe('words on every page, for every demo role', () => {
     });
   }
 
-  const mainPages = {
-    grower: ['/', '/blocks', '/sprays', '/requests', '/agreements', '/placements', '/alerts', '/invoices', '/season/timeline', '/season/map'],
-    beekeeper: ['/', '/requests', '/agreements', '/placements', '/yards', '/alerts', '/invoices', '/season/timeline', '/season/map'],
-  };
-  for (const size of [{ name: 'desktop', width: 1280, height: 860 }, { name: 'phone', width: 360, height: 740 }]) {
-    it(`keeps screenshots of the grower's and the beekeeper's main pages at ${size.name} width`, { timeout: 420_000 }, async () => {
-      for (const role of roles.filter((r) => r.screenshots)) {
-        const { page, context } = await openWatchedPage(browser, { width: size.width, height: size.height });
-        await signInThroughPage(page, t.baseUrl, role.email);
-        for (const path of mainPages[role.name as keyof typeof mainPages]) {
-          await page.goto(`${t.baseUrl}${path}`);
-          await settled(page);
-          await page.evaluate(() => document.fonts.ready);
-          const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
-          expect(overflow, `${role.name} ${path} at ${size.name} width is wider than the window`).toBeLessThanOrEqual(1);
-          await saveScreenshot(page, `words-${role.name}-${path === '/' ? 'home' : path.slice(1).replace(/\//g, '-')}-${size.name}`);
-        }
-        await context.close();
+  it("keeps screenshots of the grower's and the beekeeper's main pages at phone width", { timeout: 420_000 }, async () => {
+    for (const role of roles.filter((r) => r.screenshots)) {
+      const { page, context } = await openWatchedPage(browser, { width: 360, height: 740 });
+      await signInThroughPage(page, t.baseUrl, role.email);
+      for (const path of mainPages[role.name as keyof typeof mainPages]) {
+        await page.goto(`${t.baseUrl}${path}`);
+        await settled(page);
+        await keepScreenshot(page, role.name, path, 'phone');
       }
-    });
-  }
+      await context.close();
+    }
+  });
 });
