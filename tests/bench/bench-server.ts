@@ -1,19 +1,11 @@
 // The compiled production server run as a child process for a benchmark, on a free
 // loopback port, and the browser's way of signing in to it.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { createServer } from 'node:net';
+import { freePort } from '../support/server-process.js';
 // @ts-expect-error plain JavaScript helper shared with npm start
 import { ensureServerBuilt, serverEntry } from '../../scripts/lib/server-build.mjs';
 
 export interface BenchServer { baseUrl: string; stop(): Promise<void> }
-
-const freePort = () =>
-  new Promise<number>((resolve) => {
-    const probe = createServer().listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as { port: number };
-      probe.close(() => resolve(port));
-    });
-  });
 
 async function waitForHealth(baseUrl: string, server: ChildProcess) {
   const deadline = Date.now() + 60_000;

@@ -17,15 +17,25 @@ export interface ServerProcess {
   stop(): Promise<void>;
 }
 
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
+/** Whether nothing listens on this port of 127.0.0.1 right now. */
+function isFree(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
     const probe = createServer();
-    probe.once('error', reject);
-    probe.listen(0, '127.0.0.1', () => {
-      const { port } = probe.address() as { port: number };
-      probe.close(() => resolve(port));
-    });
+    probe.once('error', () => resolve(false));
+    probe.listen(port, '127.0.0.1', () => probe.close(() => resolve(true)));
   });
+}
+
+/**
+ * A free port for a process started later, taken below Linux's ephemeral range (32768 and
+ * up): a port the kernel handed out and took back could be given to any outgoing
+ * connection while the process starts, and its listen would then fail.
+ */
+export async function freePort(): Promise<number> {
+  for (;;) {
+    const port = 20_000 + Math.floor(Math.random() * 12_000);
+    if (await isFree(port)) return port;
+  }
 }
 
 /** Starts a server process with these environment settings (DATABASE_URL, SMTP_PORT, ...). */

@@ -4,20 +4,10 @@ import { execFileSync } from 'node:child_process';
 import { mkdtempSync, chownSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { createServer } from 'node:net';
+import { freePort } from './server-process.js';
 import pg from 'pg';
 
 const isRoot = process.getuid?.() === 0;
-
-function freePort(): Promise<number> {
-  return new Promise((resolve) => {
-    const server = createServer();
-    server.listen(0, '127.0.0.1', () => {
-      const port = (server.address() as { port: number }).port;
-      server.close(() => resolve(port));
-    });
-  });
-}
 
 function asOwner(bin: string, args: string[]) {
   const command = `${bin}/${args[0]}`;
