@@ -1,10 +1,12 @@
 // Test suites: domain (pure shared code), api (supertest + socket.io against createApp and
 // a real PostgreSQL copy per file) and e2e (Chromium driving the built client).
 import { defineConfig } from 'vitest/config';
+import { WaitingFirstSequencer } from './tests/support/waiting-first-sequencer.js';
 
 export default defineConfig({
   test: {
     pool: 'forks',
+    sequence: { sequencer: WaitingFirstSequencer },
     // Test files mostly wait on the database, sockets and the browser, so more files than cores run at once.
     maxWorkers: 4,
     // API and browser files share a worker's module cache (isolate: false): the server and
