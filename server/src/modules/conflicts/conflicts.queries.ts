@@ -136,7 +136,8 @@ export async function searchConflicts(sequelize: Sequelize, scope: SearchScope, 
   return {
     blocks: row?.blocks ?? [],
     duringBloom: Boolean(row?.during_bloom),
-    exposures: (row?.exposures ?? []).map((r) => ({ ...r, distance_m: Number(r.distance_m), colonies: Number(r.colonies), notice_hours: Number(r.notice_hours) })),
+    // json_agg gives numbers as JSON numbers, so the rows need no conversion.
+    exposures: row?.exposures ?? [],
   };
 }
 
