@@ -5,6 +5,10 @@
 // returns) the service worker sends the record itself and marks it as the page's outbox
 // does: sent (the server keeps it once), refused with the server's reason, or still
 // waiting when the session has ended (the page then asks to sign in again).
+// No signal is the browser's offline mode (what the page sees) and, under it, a cut of the
+// connection to our server (tests/support/tcp-proxy.ts): the browser may fire the sync on
+// its own at any moment, and its offline mode reaches a restarted service worker only a
+// moment after its script runs, so nothing may get through before the signal returns.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
@@ -16,6 +20,7 @@ import { seedAccounts } from '../../seed/parts/accounts.seed.js';
 import type { SeedWorld } from '../../seed/seed-world.js';
 import { placementStateSet } from '../../shared/labels/placements.js';
 import { solidPng } from '../support/test-png.js';
+import { startTcpProxy, type TcpProxy } from '../support/tcp-proxy.js';
 
 const poll = <T>(check: () => T | Promise<T>) => expect.poll(check, { timeout: 20_000, interval: 150 });
 
@@ -24,12 +29,16 @@ interface StoredRecord { key: string; kind: string; state: string; attempts: num
 
 describe('field records sent by the service worker under Background Sync', () => {
   let t: TestApp;
+  let signal: TcpProxy;
+  let baseUrl: string;
   let browser: Browser;
   const placements: { sent: string; signedOut: string; refused: string } = { sent: '', signedOut: '', refused: '' };
   const watched: WatchedPage[] = [];
 
   beforeAll(async () => {
     t = await startTestApp();
+    signal = await startTcpProxy({ host: '127.0.0.1', port: t.port });
+    baseUrl = `http://127.0.0.1:${signal.port}`;
     const world = { today: new Date(), extra: {} } as SeedWorld;
     await seedAccounts(world);
     const now = Date.now();
@@ -45,6 +54,7 @@ describe('field records sent by the service worker under Background Sync', () =>
   afterAll(async () => {
     for (const [i, w] of watched.entries()) if (!w.page.isClosed()) await saveScreenshot(w.page, `field-background-sync-end-${i}`).catch(() => {});
     await browser?.close();
+    await signal?.close();
     await t?.stop();
   });
 
@@ -55,11 +65,12 @@ describe('field records sent by the service worker under Background Sync', () =>
     const crew = await openWatchedPage(browser, { width: 412, height: 915, serviceWorkers: 'allow' });
     watched.push(crew);
     const { page, context } = crew;
-    await signInThroughPage(page, t.baseUrl, 'crew@apiary.test', 'pollen-demo-2026');
-    await page.goto(`${t.baseUrl}/placements/${placementId}`);
+    await signInThroughPage(page, baseUrl, 'crew@apiary.test', 'pollen-demo-2026');
+    await page.goto(`${baseUrl}/placements/${placementId}`);
     await poll(() => page.evaluate(() => navigator.serviceWorker.ready.then(() => !!navigator.serviceWorker.controller))).toBe(true);
     await page.locator('#delivered-count').waitFor();
 
+    signal.cut(10 * 60_000);
     await context.setOffline(true);
     await poll(() => page.evaluate(() => navigator.onLine)).toBe(false);
     if (options.photo) {
@@ -74,9 +85,15 @@ describe('field records sent by the service worker under Background Sync', () =>
     return context;
   }
 
+  /** The signal returns: our server is reachable again, and the browser leaves offline mode. */
+  async function signalReturns(context: BrowserContext): Promise<void> {
+    signal.restore();
+    await context.setOffline(false);
+  }
+
   /** The outbox's records, read through the service worker. */
   async function outboxOf(context: BrowserContext): Promise<StoredRecord[]> {
-    const worker = context.serviceWorkers().find((w) => w.url().startsWith(t.baseUrl)) ?? (await context.waitForEvent('serviceworker'));
+    const worker = context.serviceWorkers().find((w) => w.url().startsWith(baseUrl)) ?? (await context.waitForEvent('serviceworker'));
     return worker.evaluate(() => new Promise<StoredRecord[]>((resolve, reject) => {
       const open = indexedDB.open('pollenpact-field');
       open.onerror = () => reject(open.error);
@@ -101,7 +118,7 @@ describe('field records sent by the service worker under Background Sync', () =>
   async function dispatchOutboxSync(context: BrowserContext, times = 1): Promise<Page> {
     const blank = await context.newPage();
     const cdp = await context.newCDPSession(blank);
-    const scope = `${t.baseUrl}/`;
+    const scope = `${baseUrl}/`;
     const registrationId = new Promise<string>((resolve) => {
       cdp.on('ServiceWorker.workerRegistrationUpdated', ({ registrations }) => {
         const mine = registrations.find((r) => r.scopeURL === scope && !r.isDeleted);
@@ -110,7 +127,7 @@ describe('field records sent by the service worker under Background Sync', () =>
     });
     await cdp.send('ServiceWorker.enable');
     const id = await registrationId;
-    await Promise.all(Array.from({ length: times }, () => cdp.send('ServiceWorker.dispatchSyncEvent', { origin: t.baseUrl, registrationId: id, tag: 'field-outbox', lastChance: false })));
+    await Promise.all(Array.from({ length: times }, () => cdp.send('ServiceWorker.dispatchSyncEvent', { origin: baseUrl, registrationId: id, tag: 'field-outbox', lastChance: false })));
     return blank;
   }
 
@@ -121,9 +138,9 @@ describe('field records sent by the service worker under Background Sync', () =>
     // Recorded photo first, drop-off second; the step goes first all the same (as the page's outbox sends).
     expect(waiting).toMatchObject([{ kind: 'photo', state: 'waiting', attempts: 0 }, { kind: 'delivery', state: 'waiting', attempts: 0 }]);
 
-    await context.setOffline(false);
     const answers: string[] = [];
     context.on('response', (r) => { if (r.request().method() === 'POST' && r.request().serviceWorker()) answers.push(`${new URL(r.url()).pathname.split('/').pop()} ${r.status()}`); });
+    await signalReturns(context);
     // Two sync events at once (the browser's own and ours may meet): each record goes once.
     const blank = await dispatchOutboxSync(context, 2);
     await poll(async () => (await outboxOf(context)).map((r) => r.state)).toEqual(['sent', 'sent']);
@@ -144,7 +161,7 @@ describe('field records sent by the service worker under Background Sync', () =>
       .toEqual([{ response_status: 201 }, { response_status: 201 }]);
 
     // Opened again, the page shows what the worker did.
-    await blank.goto(`${t.baseUrl}/placements/${id}`);
+    await blank.goto(`${baseUrl}/placements/${id}`);
     await poll(() => blank.getByTestId('outbox-waiting').textContent()).toBe('Everything recorded here is sent');
     expect(await blank.locator('.pp-outbox-item[data-state="sent"]').count()).toBe(2);
     await blank.close();
@@ -156,10 +173,10 @@ describe('field records sent by the service worker under Background Sync', () =>
     // The session ends on the server meanwhile (expired, or ended from another device).
     expect((await t.context.sequelize.query('DELETE FROM user_sessions RETURNING sid', { type: QueryTypes.SELECT })).length).toBeGreaterThan(0);
 
-    await context.setOffline(false);
     const sessionCheck = context.waitForEvent('response', { predicate: (r) => new URL(r.url()).pathname === '/api/auth/me' && !!r.request().serviceWorker(), timeout: 20_000 });
     const posts: string[] = [];
     context.on('request', (r) => { if (r.method() === 'POST') posts.push(r.url()); });
+    await signalReturns(context);
     const blank = await dispatchOutboxSync(context);
     expect((await sessionCheck).status()).toBe(401);
     await new Promise((resolve) => setTimeout(resolve, 1000));
@@ -169,7 +186,7 @@ describe('field records sent by the service worker under Background Sync', () =>
     expect((await rows<{ state: string }>('SELECT state FROM placements WHERE id = :id', { id }))[0].state).toBe('scheduled');
 
     // The page sends the crew member to sign in; once signed in, the record goes, once.
-    await blank.goto(`${t.baseUrl}/placements/${id}`);
+    await blank.goto(`${baseUrl}/placements/${id}`);
     await blank.waitForURL((url) => url.pathname === '/sign-in');
     await blank.getByLabel('E-mail').fill('crew@apiary.test');
     await blank.getByLabel('Password').fill('pollen-demo-2026');
@@ -187,8 +204,8 @@ describe('field records sent by the service worker under Background Sync', () =>
     const keeper = await signedInClient(t.app, 'keeper@apiary.test');
     await keeper.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 9 }).expect(201);
 
-    await context.setOffline(false);
     const refusal = context.waitForEvent('response', { predicate: (r) => r.url().endsWith(`/api/placements/${id}/delivery`) && !!r.request().serviceWorker(), timeout: 20_000 });
+    await signalReturns(context);
     const blank = await dispatchOutboxSync(context);
     const answer = await refusal;
     expect(answer.status()).toBe(409);
@@ -197,7 +214,7 @@ describe('field records sent by the service worker under Background Sync', () =>
     expect(await outboxOf(context)).toMatchObject([{ state: 'rejected', attempts: 1, error: reason, recorded: { state: 'delivered' } }]);
 
     // The page words it as its own outbox does: the reason, then what the server records.
-    await blank.goto(`${t.baseUrl}/placements/${id}`);
+    await blank.goto(`${baseUrl}/placements/${id}`);
     const shown = blank.locator('.pp-outbox-item[data-state="rejected"] .pp-outbox-error');
     await poll(() => shown.textContent()).toBe(`${reason} Recorded: ${placementStateSet.labels.delivered}. 9 colonies dropped off by Tobin Waxley.`);
     expect((await rows<{ colonies_delivered: number }>('SELECT colonies_delivered FROM placements WHERE id = :id', { id }))[0].colonies_delivered).toBe(9);

@@ -1,5 +1,6 @@
-// A TCP proxy a test puts between a server and PostgreSQL, to take the database away: cut()
-// drops every connection and refuses new ones for a while; cutOn(pattern) does so the
+// A TCP proxy a test puts between a server and PostgreSQL (to take the database away) or
+// between a browser and our server (to take the signal away): cut() drops every connection
+// and refuses new ones for a while, restore() ends that early; cutOn(pattern) cuts the
 // moment a client sends a matching statement (e.g. in the middle of a save's transaction).
 import { connect, createServer, type Socket } from 'node:net';
 
@@ -7,6 +8,8 @@ export interface TcpProxy {
   port: number;
   /** Drops every connection and refuses new ones for `ms`. */
   cut(ms: number): void;
+  /** Accepts connections again now, however long the cut was meant to last. */
+  restore(): void;
   /** Cuts for `ms` as soon as a client sends bytes matching `pattern`; resolves when it did. */
   cutOn(pattern: RegExp, ms: number): Promise<void>;
   /** Whether connections are being refused now. */
@@ -58,6 +61,7 @@ export async function startTcpProxy(target: { host: string; port: number }): Pro
   return {
     port,
     cut,
+    restore: () => { downUntil = 0; },
     cutOn: (pattern, ms) => new Promise<void>((fired) => (trigger = { pattern, ms, fired })),
     get down() { return isDown(); },
     async close() {
