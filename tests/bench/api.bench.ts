@@ -88,6 +88,16 @@ async function main() {
     // Warm the pools and caches before measuring.
     await load({ url: baseUrl, headers: { cookie: grower.cookie }, duration: 2, requests: readRoutes.map((r) => ({ method: 'GET', path: r.path })) });
 
+    // The floor under every read route on this machine: a request with no session, and a
+    // signed-in request that only reads its session and user (two queries, no route work).
+    console.log('floor (for reference, no target):');
+    const floor = {
+      health: await load({ url: `${baseUrl}/api/health`, duration: SECONDS }),
+      session: await load({ url: `${baseUrl}/api/auth/me`, headers: { cookie: grower.cookie }, duration: SECONDS }),
+    };
+    console.log(row('no session /health', floor.health));
+    console.log(row('session only /auth/me', floor.session));
+
     console.log('read routes, one at a time:');
     const perRoute: Array<[string, RunFigures]> = [];
     for (const route of readRoutes) {
@@ -112,7 +122,7 @@ async function main() {
     console.log('write:');
     console.log(row('commitment offer', offers));
 
-    const totalErrors = perRoute.reduce((n, [, f]) => n + f.errors, 0) + mix.errors + offers.errors;
+    const totalErrors = perRoute.reduce((n, [, f]) => n + f.errors, 0) + mix.errors + offers.errors + floor.health.errors + floor.session.errors;
     console.log('targets:');
     console.log(`  read mix >= 1,000 req/s: ${mix.perSecond.toFixed(0)} req/s, ${verdict(mix.perSecond >= 1_000)}`);
     console.log(`  read mix p95 <= 25 ms: ${mix.p95.toFixed(1)} ms, ${verdict(mix.p95 <= 25)}`);
