@@ -1,7 +1,7 @@
 // Builders for organizations and their members, used by tests and by the demo seed.
 import type { Organization } from '../../../server/src/db/models/organization.model.js';
 import type { User } from '../../../server/src/db/models/user.model.js';
-import { hashPassword } from '../../../server/src/modules/auth/passwords.js';
+import { hashPassword, passwordCost } from '../../../server/src/modules/auth/passwords.js';
 import type { MemberRole, OrganizationKind } from '../../../shared/roles.js';
 import { builderModels, builderSequelize } from './builder-database.js';
 
@@ -9,9 +9,15 @@ let counter = 0;
 const unique = () => `${Date.now().toString(36)}${(counter++).toString(36)}`;
 
 export const defaultTestPassword = 'pollen-demo-2026';
+/**
+ * Accounts built inside the test runner are hashed at a low scrypt cost: the server verifies
+ * each hash at the cost stored in it, so the suite's many sign-ins stay cheap, while every
+ * hash the server makes (sign-up, reset, invitation) and the demo seed keep the full cost.
+ */
+const builderCost = process.env.VITEST ? { ...passwordCost, N: 2 ** 10 } : passwordCost;
 let cachedDefaultHash: Promise<string> | null = null;
 const hashFor = (password: string) =>
-  password === defaultTestPassword ? (cachedDefaultHash ??= hashPassword(defaultTestPassword)) : hashPassword(password);
+  password === defaultTestPassword ? (cachedDefaultHash ??= hashPassword(defaultTestPassword, builderCost)) : hashPassword(password, builderCost);
 
 export async function buildOrganization(attrs: { kind: OrganizationKind; name?: string; timeZone?: string; coloniesOwned?: number | null; billingEmail?: string | null; taxRateBp?: number }) {
   return builderModels().Organization.create({

@@ -2,7 +2,10 @@
 // scrypt$N$r$p$salt$hash, so the cost can be raised later without breaking old hashes.
 import { scrypt, randomBytes, timingSafeEqual, type ScryptOptions } from 'node:crypto';
 
-const cost = { N: 2 ** 15, r: 8, p: 1 };
+export interface ScryptCost { N: number; r: number; p: number }
+
+/** The cost of every hash the server makes. Verifying uses the cost stored in the hash. */
+export const passwordCost: ScryptCost = { N: 2 ** 15, r: 8, p: 1 };
 const keyLength = 32;
 
 function derive(password: string, salt: Buffer, options: ScryptOptions): Promise<Buffer> {
@@ -13,7 +16,7 @@ function derive(password: string, salt: Buffer, options: ScryptOptions): Promise
   );
 }
 
-export async function hashPassword(password: string): Promise<string> {
+export async function hashPassword(password: string, cost: ScryptCost = passwordCost): Promise<string> {
   const salt = randomBytes(16);
   const key = await derive(password, salt, cost);
   return ['scrypt', cost.N, cost.r, cost.p, salt.toString('base64'), key.toString('base64')].join('$');
