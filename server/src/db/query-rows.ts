@@ -2,7 +2,9 @@
 // counters): only from a feature's `<feature>.queries.ts`, always with bind parameters
 // ($1 / $name) or named replacements (:name), never with values written into the text.
 // Inside a transaction pass it, so the query runs on that transaction's connection.
+// A hot statement may be prepared once per connection (queryPrepared).
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
+import type { ClientBase } from 'pg';
 
 export interface QueryOptions {
   /** Named replacements (`:name`), escaped by Sequelize. */
@@ -27,3 +29,46 @@ export async function execute(sequelize: Sequelize, sql: string, options: QueryO
   const [, meta] = (await sequelize.query(sql, { ...options, type: QueryTypes.RAW })) as [unknown, { rowCount?: number } | undefined];
   return meta?.rowCount ?? 0;
 }
+
+/** A hot SELECT with named bind parameters, turned once into the positional form PostgreSQL prepares. */
+export interface PreparedStatement {
+  name: string;
+  text: string;
+  params: string[];
+}
+
+/** `$name` parameters become `$1`, `$2`… in the order first met; `params` keeps that order. */
+export function prepareStatement(name: string, sql: string): PreparedStatement {
+  const params: string[] = [];
+  const text = sql.replace(/\$([a-zA-Z]\w*)/g, (_, param: string) => {
+    if (!params.includes(param)) params.push(param);
+    return `$${params.indexOf(param) + 1}`;
+  });
+  return { name, text, params };
+}
+
+/**
+ * Runs a prepared statement by name on the transaction's connection, or on one from the
+ * pool: PostgreSQL parses it once per connection and, once its generic plan costs no more
+ * than a fresh one, stops planning it each time. Only for a statement written so its plan
+ * does not depend on the values (lookups fenced with OFFSET 0, by key); the values go as
+ * bind parameters, as with queryRows.
+ */
+export async function queryPrepared<T extends object>(sequelize: Sequelize, statement: PreparedStatement, bind: Record<string, unknown>, transaction?: Transaction | null): Promise<T[]> {
+  const values = statement.params.map((param) => {
+    if (!(param in bind)) throw new Error(`${statement.name}: no value for $${param}`);
+    return bind[param];
+  });
+  const manager = sequelize.connectionManager;
+  const connection = (transaction ? (transaction as unknown as { connection: PgConnection }).connection : await manager.getConnection({ type: 'read' })) as PgConnection;
+  // Logged as Sequelize logs its own queries, naming the transaction's connection.
+  const log = (sequelize as unknown as { options: { logging?: unknown } }).options.logging;
+  if (typeof log === 'function') log(`Executing (${(connection as { uuid?: string }).uuid ?? 'default'}): ${statement.text}`);
+  try {
+    return (await connection.query<T>({ name: statement.name, text: statement.text, values })).rows;
+  } finally {
+    if (!transaction) manager.releaseConnection(connection);
+  }
+}
+
+type PgConnection = Pick<ClientBase, 'query'>;

@@ -4,7 +4,7 @@
 // whether the sprayed blocks bloom in that window, and which sprays a changed block or
 // agreement may touch. Bind parameters only; pass the caller's transaction.
 import type { Sequelize, Transaction } from 'sequelize';
-import { queryOne, queryRows } from '../../db/query-rows.js';
+import { prepareStatement, queryPrepared, queryRows } from '../../db/query-rows.js';
 
 export interface SearchScope {
   farmId: string;
@@ -69,10 +69,13 @@ const searchSql = `
   ),
   unscheduled AS MATERIALIZED (
     -- Agreements with no placement yet, looked up once per request near the spray, not once per drop site.
+    -- By request (OFFSET 0 keeps the lookup apart), never by the window: every agreement of the season overlaps it.
     SELECT a.id, a.request_id, a.state, a.apiary_id, a.notice_hours, a.colonies, a.expected_on_site && tstzrange($from, $to, '[)') AS during_spray
     FROM (SELECT DISTINCT request_id FROM near_sites) r
-    JOIN agreements a ON a.request_id = r.request_id AND a.state IN ('awaiting-signatures', 'in-force')
-      AND a.expected_on_site && tstzrange($from, $exposureTo, '[)')
+    CROSS JOIN LATERAL (
+      SELECT a.* FROM agreements a WHERE a.request_id = r.request_id AND a.state IN ('awaiting-signatures', 'in-force')
+        AND a.expected_on_site && tstzrange($from, $exposureTo, '[)') OFFSET 0
+    ) a
     WHERE NOT EXISTS (SELECT 1 FROM placements p WHERE p.agreement_id = a.id)
   ),
   found AS (
@@ -112,6 +115,9 @@ const searchSql = `
     ) AS during_bloom,
     (SELECT coalesce(json_agg(e ORDER BY e.apiary_name, e.distance_m, e.drop_site_id, e.agreement_id), '[]') FROM exposures e) AS exposures`;
 
+/** The search, prepared once per connection: it runs on every save, and its plan does not depend on the values. */
+const searchStatement = prepareStatement('conflict-search', searchSql);
+
 /** The search's SQL, for the benchmark's EXPLAIN (bind parameters $farmId, $blockIds, $from, $to, $exposureTo, $bufferM). */
 export const conflictSearchSqlForExplain = searchSql;
 
@@ -128,11 +134,12 @@ export interface ConflictSearch {
 }
 
 /**
- * The whole search in one statement (one round trip): the sprayed blocks, whether they bloom
- * in the exposure window, and the colonies exposed, grouped per drop site and agreement.
+ * The whole search in one statement (one round trip, planned once per connection): the sprayed
+ * blocks, whether they bloom in the exposure window, and the colonies exposed, grouped per
+ * drop site and agreement.
  */
 export async function searchConflicts(sequelize: Sequelize, scope: SearchScope, transaction?: Tx): Promise<ConflictSearch> {
-  const row = await queryOne<{ blocks: SprayedBlockRow[]; during_bloom: boolean; exposures: ExposureRow[] }>(sequelize, searchSql, { bind: searchBind(scope), transaction });
+  const [row] = await queryPrepared<{ blocks: SprayedBlockRow[]; during_bloom: boolean; exposures: ExposureRow[] }>(sequelize, searchStatement, searchBind(scope), transaction);
   return {
     blocks: row?.blocks ?? [],
     duringBloom: Boolean(row?.during_bloom),
