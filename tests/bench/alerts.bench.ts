@@ -89,6 +89,7 @@ async function main() {
     const round = async (r: number) => {
       const perDelivery: number[] = [];
       const perSpray: number[] = [];
+      const perAnswer: number[] = [];
       for (let k = 0; k < SPRAYS; k += 1) {
         const pairIndex = k % PAIRS;
         const owner = sessions.get(pairs[pairIndex].owner)!;
@@ -100,6 +101,7 @@ async function main() {
           body: JSON.stringify(sprayInput({ blockIds: [pairs[pairIndex].blockId], startsAt })),
         });
         const body = (await res.json()) as { spray?: { id: string } };
+        perAnswer.push(performance.now() - sent);
         if (res.status !== 201 || !body.spray) throw new Error(`planning failed: ${res.status} ${JSON.stringify(body)}`);
         const sprayId = body.spray.id;
         const list: number[] = [];
@@ -114,16 +116,17 @@ async function main() {
       }
       perDelivery.sort((a, b) => a - b);
       perSpray.sort((a, b) => a - b);
-      return { perDelivery, perSpray };
+      perAnswer.sort((a, b) => a - b);
+      return { perDelivery, perSpray, perAnswer };
     };
     const affected = MEMBERS * 2;
     const p95s: number[] = [];
     let deliveries = 0;
     for (let r = 0; r < ROUNDS; r += 1) {
-      const { perDelivery, perSpray } = await round(r);
+      const { perDelivery, perSpray, perAnswer } = await round(r);
       deliveries += perDelivery.length;
       p95s.push(percentile(perSpray, 95));
-      console.log(`  round ${r + 1}: request sent -> alert at each affected client p50 ${fmt(percentile(perDelivery, 50))}, p95 ${fmt(percentile(perDelivery, 95))}; at every affected client p50 ${fmt(percentile(perSpray, 50))}, p95 ${fmt(percentile(perSpray, 95))}, p99 ${fmt(percentile(perSpray, 99))}`);
+      console.log(`  round ${r + 1}: request sent -> alert at each affected client p50 ${fmt(percentile(perDelivery, 50))}, p95 ${fmt(percentile(perDelivery, 95))}; at every affected client p50 ${fmt(percentile(perSpray, 50))}, p95 ${fmt(percentile(perSpray, 95))}, p99 ${fmt(percentile(perSpray, 99))}; the save's own answer p50 ${fmt(percentile(perAnswer, 50))}, p95 ${fmt(percentile(perAnswer, 95))}`);
     }
     // Late strays for the last sprays have a moment to show up before counting.
     await new Promise((r) => setTimeout(r, 500));
