@@ -26,15 +26,19 @@ export interface RecheckResult {
 
 const keyOf = (apiaryId: string | null) => apiaryId ?? 'farm';
 
-/** The re-check inside the caller's transaction (a spray save answers from its result). */
-export async function recheckSprayIn(ctx: AppContext, transaction: Transaction, sprayId: string): Promise<RecheckResult> {
+/**
+ * The re-check inside the caller's transaction (a spray save answers from its result).
+ * `justCreated`: the spray as this transaction inserted it; nobody else can see it yet, so
+ * it is neither read again nor locked, and it has no alerts.
+ */
+export async function recheckSprayIn(ctx: AppContext, transaction: Transaction, sprayId: string, justCreated?: StoredSpray): Promise<RecheckResult> {
   const { Alert, AlertEvent, AlertView } = ctx.models;
   const now = ctx.now();
-  const spray = await loadStoredSpray(ctx, sprayId, { forUpdate: true, transaction });
+  const spray = justCreated ?? (await loadStoredSpray(ctx, sprayId, { forUpdate: true, transaction }));
   if (!spray) return { spray: null, check: null, changes: [] };
   const ran = await checkStoredSpray(ctx, spray, transaction);
   const check = spray.state === 'cancelled' ? { ...ran, conflicts: [] } : ran;
-  const existing = await Alert.findAll({ where: { sprayPlanId: sprayId }, lock: transaction.LOCK.UPDATE, transaction });
+  const existing = justCreated ? [] : await Alert.findAll({ where: { sprayPlanId: sprayId }, lock: transaction.LOCK.UPDATE, transaction });
   const byKey = new Map(existing.map((a) => [keyOf(a.apiaryId), a]));
   const changes: AlertChange[] = [];
   if (ctx.config.faults.exitAfterAlertCommit) {

@@ -3,6 +3,8 @@
 import type { Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { SprayState } from '../../../../shared/schemas/sprays.js';
+import type { SprayPlan } from '../../db/models/spray-plan.model.js';
+import type { Organization } from '../../db/models/organization.model.js';
 import { runConflictCheck, type CheckOutput } from './conflict-check.js';
 import { sprayWindow } from './spray-window.js';
 
@@ -23,6 +25,16 @@ export interface StoredSpray {
   blockIds: string[];
 }
 
+/** The stored spray as the check reads it, from its row, its blocks and its farm. */
+export function storedSprayOf(spray: SprayPlan, blockIds: string[], farm: Pick<Organization, 'id' | 'name' | 'timeZone' | 'sprayBufferM'>): StoredSpray {
+  return {
+    id: spray.id, farmId: spray.farmId, state: spray.state, startsAt: spray.plannedWindow[0].value, endsAt: spray.plannedWindow[1].value,
+    appliedAt: spray.appliedAt, ld50UgPerBee: spray.ld50UgPerBee, rt25Hours: spray.rt25Hours, noticedAt: spray.noticedAt,
+    productName: spray.productName, epaRegNo: spray.epaRegNo, farm: { id: farm.id, name: farm.name, timeZone: farm.timeZone },
+    sprayBufferM: farm.sprayBufferM, blockIds: [...blockIds].sort(),
+  };
+}
+
 export async function loadStoredSpray(ctx: AppContext, sprayId: string, options: { forUpdate?: boolean; transaction?: Transaction } = {}): Promise<StoredSpray | null> {
   const { SprayPlan, SprayPlanBlock } = ctx.models;
   const { transaction } = options;
@@ -32,13 +44,8 @@ export async function loadStoredSpray(ctx: AppContext, sprayId: string, options:
     ...(options.forUpdate && transaction ? { lock: { level: transaction.LOCK.UPDATE, of: SprayPlan } } : {}),
   });
   if (!spray) return null;
-  const links = await SprayPlanBlock.findAll({ where: { sprayPlanId: sprayId }, attributes: ['blockId'], order: [['blockId', 'ASC']], transaction });
-  return {
-    id: spray.id, farmId: spray.farmId, state: spray.state, startsAt: spray.plannedWindow[0].value, endsAt: spray.plannedWindow[1].value,
-    appliedAt: spray.appliedAt, ld50UgPerBee: spray.ld50UgPerBee, rt25Hours: spray.rt25Hours, noticedAt: spray.noticedAt,
-    productName: spray.productName, epaRegNo: spray.epaRegNo, farm: { id: spray.farm!.id, name: spray.farm!.name, timeZone: spray.farm!.timeZone },
-    sprayBufferM: Number(spray.farm!.sprayBufferM), blockIds: links.map((l) => l.blockId),
-  };
+  const links = await SprayPlanBlock.findAll({ where: { sprayPlanId: sprayId }, attributes: ['blockId'], transaction });
+  return storedSprayOf(spray, links.map((l) => l.blockId), spray.farm!);
 }
 
 export function checkStoredSpray(ctx: AppContext, spray: StoredSpray, transaction?: Transaction): Promise<CheckOutput> {

@@ -12,7 +12,7 @@ import { notFound, wrongState, badRequest } from '../../errors/http-errors.js';
 import { productBeeHazard } from '../../../../shared/domain/bee-toxicity.js';
 import type { SprayApply, SprayDto, SprayInput, SprayState, SprayUpdate, SprayWithCheck } from '../../../../shared/schemas/sprays.js';
 import { runConflictCheck, type CheckOutput } from '../conflicts/conflict-check.js';
-import { checkStoredSpray, loadStoredSpray } from '../conflicts/stored-spray-check.js';
+import { checkStoredSpray, loadStoredSpray, storedSprayOf, type StoredSpray } from '../conflicts/stored-spray-check.js';
 import { exposureEnd, sprayWindow } from '../conflicts/spray-window.js';
 import { recheckSprayIn } from '../alerts/alert-recheck.js';
 import { sprayChanged } from '../alerts/conflict-rechecks.js';
@@ -68,6 +68,9 @@ export function createSpraysService(ctx: AppContext) {
     return plan;
   }
 
+  /** What a save's work leaves: the plan, and for a new one the plan as the check reads it. */
+  type Saved = { plan: SprayPlan; justCreated?: StoredSpray };
+
   const mapOf = (buffer: string | null): SprayWithCheck['buffer'] => (buffer ? JSON.parse(buffer) : null);
 
   /**
@@ -76,11 +79,11 @@ export function createSpraysService(ctx: AppContext) {
    * answer is read after the commit, so the alerts go out without waiting for it; every
    * alert left open is one of the check's conflicts.
    */
-  async function save(work: (t: Transaction) => Promise<SprayPlan>): Promise<SprayWithCheck> {
+  async function save(work: (t: Transaction) => Promise<Saved>): Promise<SprayWithCheck> {
     const { plan, check } = await ctx.sequelize.transaction(async (transaction) => {
       const saved = await work(transaction);
-      await sprayChanged(ctx, transaction, saved.id);
-      return { plan: saved, check: (await recheckSprayIn(ctx, transaction, saved.id)).check! };
+      await sprayChanged(ctx, transaction, saved.plan.id);
+      return { plan: saved.plan, check: (await recheckSprayIn(ctx, transaction, saved.plan.id, saved.justCreated)).check! };
     });
     const [blocks, buffer] = await Promise.all([blocksOfSprays(ctx.sequelize, [plan.id]), bufferArea(ctx.sequelize, plan.id)]);
     return { spray: dtoOf(plan, blocks.get(plan.id) ?? [], check.conflicts.length), check: publicCheck(check), buffer: mapOf(buffer) };
@@ -129,7 +132,8 @@ export function createSpraysService(ctx: AppContext) {
           noticedAt: ctx.now(), createdBy: user.id,
         }, { transaction });
         await SprayPlanBlock.bulkCreate(blockIds.map((blockId) => ({ sprayPlanId: plan.id, blockId })), { transaction });
-        return plan;
+        const farm = await Organization.findByPk(farmId, { attributes: ['id', 'name', 'timeZone', 'sprayBufferM'], transaction });
+        return { plan, justCreated: storedSprayOf(plan, blockIds, farm!) };
       });
     },
 
@@ -157,7 +161,7 @@ export function createSpraysService(ctx: AppContext) {
           await SprayPlanBlock.destroy({ where: { sprayPlanId: id }, transaction });
           await SprayPlanBlock.bulkCreate(blockIds.map((blockId) => ({ sprayPlanId: id, blockId })), { transaction });
         }
-        return plan;
+        return { plan };
       });
     },
 
@@ -173,7 +177,7 @@ export function createSpraysService(ctx: AppContext) {
           state: 'applied', appliedAt,
           exposureWindow: windowOf(window.from, exposureEnd(window.to, { ld50UgPerBee: plan.ld50UgPerBee, rt25Hours: plan.rt25Hours })),
         }, { transaction });
-        return plan;
+        return { plan };
       });
     },
 
@@ -183,7 +187,7 @@ export function createSpraysService(ctx: AppContext) {
         const plan = await lockOwn(farmId, id, transaction);
         if (plan.state !== 'planned') throw wrongState(`This spray is ${labelOf(sprayStateSet, plan.state).toLowerCase()}; only a planned spray can be cancelled.`);
         await plan.update({ state: 'cancelled' }, { transaction });
-        return plan;
+        return { plan };
       });
     },
   };
