@@ -33,7 +33,7 @@ describe('Idempotency-Key on the field steps', () => {
 
   it('keeps one strength check when the same record is sent five times at once with one key', async () => {
     const id = await scheduledPlacementId(20);
-    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 20 }).set('Idempotency-Key', randomUUID()).expect(201);
+    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 20, deliveredAt: new Date(Date.now() - 2 * 3_600_000).toISOString() }).set('Idempotency-Key', randomUUID()).expect(201);
     const key = randomUUID();
     const check = { framesOfBees: [7, 8], coloniesInGroup: 20, checkedAt: new Date(Date.now() - 3_600_000).toISOString() };
     const answers = await Promise.all(Array.from({ length: 5 }, () => crew.post(`/api/placements/${id}/strength-checks`, check).set('Idempotency-Key', key)));

@@ -1,7 +1,8 @@
 // The time a phone sends for a field step (drop-off, strength check, pickup, photo) is
 // bounded when it is written: not in the future beyond the clock tolerance, and not before
 // the agreement was made. Either is a 400 that names the field and changes nothing; a good
-// past time is kept as the step's time, beside the time the server received it.
+// past time is kept as the step's time, beside the time the server received it. A strength
+// check is not before its drop-off, as a pickup is after it.
 // The five-minute tolerance and "not before the agreement" are common practice, no source.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { randomUUID } from 'node:crypto';
@@ -75,6 +76,18 @@ describe('recorded times on the field steps', () => {
     expect(await count('SELECT count(*) AS n FROM strength_checks WHERE placement_id = :id', id)).toBe(0);
     expect(await count('SELECT count(*) AS n FROM placement_photos WHERE placement_id = :id', id)).toBe(0);
     expect((await crew.get(`/api/placements/${id}`).expect(200)).body.placement.state).toBe('delivered');
+  });
+
+  it('refuses a strength check recorded before the drop-off with a 400 naming checkedAt, and records nothing', async () => {
+    const id = await placementAgreedTwoDaysAgo();
+    const droppedOff = new Date(Date.now() - DAY);
+    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 10, deliveredAt: droppedOff.toISOString() }).expect(201);
+    const before = await crew.post(`/api/placements/${id}/strength-checks`, { framesOfBees: [8], checkedAt: new Date(droppedOff.getTime() - HOUR).toISOString() });
+    expect(before.status).toBe(400);
+    expect(before.body.error.fields).toEqual({ checkedAt: 'cannot be before the drop-off' });
+    expect(await count('SELECT count(*) AS n FROM strength_checks WHERE placement_id = :id', id)).toBe(0);
+    // At the drop-off itself is fine: the crew checks the colonies as it sets them down.
+    await crew.post(`/api/placements/${id}/strength-checks`, { framesOfBees: [8], checkedAt: droppedOff.toISOString() }).expect(201);
   });
 
   it('refuses a time more than five minutes ahead (400 naming the field) and takes a small lead as the time received', async () => {

@@ -196,6 +196,7 @@ export function createPlacementsService(ctx: AppContext) {
         const p = await lockForStep(user, id, t);
         if (p.state !== 'delivered') throw wrongState(p.state === 'scheduled' ? 'Colonies are checked once they are dropped off.' : 'These colonies are already picked up.');
         await refuseBeforeAgreement(ctx, t, p.agreement!, at, 'checkedAt', 'strength check');
+        if (at < p.deliveredAt!) throw badRequest(pleaseCheck(['checkedAt']), { checkedAt: 'cannot be before the drop-off' });
         const group = body.coloniesInGroup ?? p.coloniesDelivered!;
         const required = minimumSampleSize(group);
         const fields: Record<string, string> = {};
