@@ -118,6 +118,23 @@ describe('POST /api/auth/login and the session', () => {
     expect(withToken.body.user.units).toBe('metric');
   });
 
+  it('keeps one CSRF token per session, so two senders asking at once do not refuse each other; a sign-in gets a new one', async () => {
+    const farm = await buildOrganization({ kind: 'farm' });
+    await buildUser({ organization: farm, role: 'owner', email: 'two-senders@example.test' });
+    const agent = request.agent(t.app);
+    const beforeSignIn = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken as string;
+    await agent.post('/api/auth/login').set('X-CSRF-Token', beforeSignIn).send({ email: 'two-senders@example.test', password: defaultTestPassword }).expect(200);
+    // The token of before sign-in is bound to the ended session id.
+    expect((await agent.patch('/api/auth/me/preferences').set('X-CSRF-Token', beforeSignIn).send({ units: 'metric' })).status).toBe(403);
+    // The phone's page and its service worker each ask for a token, then each sends with its own.
+    const [page, worker] = await Promise.all([agent.get('/api/auth/csrf'), agent.get('/api/auth/csrf')]);
+    const fresh = (await agent.get('/api/auth/csrf').expect(200)).body.csrfToken as string;
+    expect(fresh).not.toBe(beforeSignIn);
+    for (const token of [fresh, page.body.csrfToken, worker.body.csrfToken]) {
+      expect((await agent.patch('/api/auth/me/preferences').set('X-CSRF-Token', token).send({ units: 'metric' })).status).toBe(200);
+    }
+  });
+
   it('ends a session past its absolute lifetime whatever its activity', async () => {
     const t2 = await startTestApp({ now: () => new Date(clock) });
     try {

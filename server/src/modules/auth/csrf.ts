@@ -14,10 +14,15 @@ export function createCsrf(config: Config) {
   });
   return {
     protection: doubleCsrfProtection,
-    /** Issues a token, saving the session first so its id (which the token is bound to) stays stable. */
+    /**
+     * The session's token, saving the session first so its id (which the token is bound to)
+     * stays stable. A valid token already in the cookie is handed out again, not replaced: the
+     * phone's page and its service worker may each ask for one at once, and a replaced token
+     * would refuse the other's send. A new session (after sign-in) gets a new token.
+     */
     issue(req: Request, res: Response): string {
       req.session.csrfIssued = true;
-      return generateCsrfToken(req, res, { overwrite: true });
+      return generateCsrfToken(req, res, { overwrite: false });
     },
   };
 }
