@@ -1,7 +1,7 @@
 // Loads alerts as their DTOs for one viewing organization (which decides seenByMe and
-// what it may see: a farm its own alerts, an apiary business the ones naming it), through
-// the models, on the caller's transaction when there is one.
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+// what it may see: a farm its own alerts, an apiary business the ones naming it), each in
+// one prepared statement (alerts.queries.ts), on the caller's transaction when there is one.
+import type { Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { Alert } from '../../db/models/alert.model.js';
 import type { AlertEvent } from '../../db/models/alert-event.model.js';
@@ -9,6 +9,7 @@ import type { SprayPlan } from '../../db/models/spray-plan.model.js';
 import type { SprayState } from '../../../../shared/schemas/sprays.js';
 import { sprayCautions } from '../../../../shared/domain/conflict-grading.js';
 import type { AlertDto, AlertEventDto } from '../../../../shared/schemas/alerts.js';
+import { selectAlertList, selectAlertsById, type AlertViewRow } from './alerts.queries.js';
 
 export interface AlertFilter {
   ids?: string[];
@@ -16,57 +17,41 @@ export interface AlertFilter {
   /** With sinceRevision: also every alert changed at or after this time. */
   changedSince?: Date;
   openOnly?: boolean;
-  sprayId?: string;
 }
 
 const iso = (d: Date) => d.toISOString();
+const byName = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 
 export async function loadAlertDtos(ctx: AppContext, viewerOrgId: string, filter: AlertFilter = {}, transaction?: Transaction): Promise<AlertDto[]> {
-  const { Alert, AlertEvent, AlertView, SprayPlanBlock } = ctx.models;
-  const where: WhereOptions<Alert>[] = [{ [Op.or]: [{ farmId: viewerOrgId }, { apiaryId: viewerOrgId }] }];
-  if (filter.ids) where.push({ id: filter.ids });
-  if (filter.sinceRevision !== undefined) {
-    const newer: WhereOptions<Alert> = { revision: { [Op.gt]: String(filter.sinceRevision) } };
-    where.push(filter.changedSince ? { [Op.or]: [newer, { updatedAt: { [Op.gte]: filter.changedSince } }] } : newer);
-  }
-  if (filter.openOnly) where.push({ state: { [Op.ne]: 'resolved' } });
-  if (filter.sprayId) where.push({ sprayPlanId: filter.sprayId });
-  const alerts = await Alert.findAll({
-    where: { [Op.and]: where },
-    include: [
-      { association: 'spray', attributes: ['id', 'state', 'productName', 'epaRegNo', 'plannedWindow'] },
-      { association: 'farm', attributes: ['id', 'name', 'timeZone'] },
-      { association: 'apiary', attributes: ['id', 'name'] },
-    ],
-    order: [['revision', 'DESC']],
-    limit: 500,
-    transaction,
-  });
-  if (!alerts.length) return [];
-  const alertIds = alerts.map((a) => a.id);
-  const events = await AlertEvent.findAll({
-    where: { alertId: alertIds },
-    include: [{ association: 'actor', attributes: ['name'] }, { association: 'organization', attributes: ['name'] }],
-    order: [['id', 'ASC']],
-    transaction,
-  });
-  const seen = new Set((await AlertView.findAll({ where: { alertId: alertIds, organizationId: viewerOrgId }, attributes: ['alertId'], transaction })).map((v) => v.alertId));
-  const links = await SprayPlanBlock.findAll({
-    where: { sprayPlanId: [...new Set(alerts.map((a) => a.sprayPlanId))] },
-    include: [{ association: 'block', attributes: ['name'] }],
-    transaction,
-  });
-  const blockNames = new Map<string, string[]>();
-  for (const l of links) blockNames.set(l.sprayPlanId, [...(blockNames.get(l.sprayPlanId) ?? []), l.block!.name]);
-  const history = new Map<string, AlertEventDto[]>();
-  for (const e of events) {
-    history.set(e.alertId, [...(history.get(e.alertId) ?? []), alertEventDtoOf(e)]);
-  }
+  const rows = filter.ids
+    ? await selectAlertsById(ctx.sequelize, viewerOrgId, filter.ids, transaction)
+    : await selectAlertList(ctx.sequelize, viewerOrgId, filter, transaction);
+  return rows.map(alertDtoOfRow);
+}
 
-  return alerts.map((a) => alertDtoOf(a, {
-    farm: a.farm!, apiary: a.apiary ?? null, spray: a.spray!, blockNames: blockNames.get(a.sprayPlanId) ?? [],
-    seenByMe: seen.has(a.id), history: history.get(a.id) ?? [],
-  }));
+/** One alert as its DTO, from the row the viewer's statement gives. */
+function alertDtoOfRow(r: AlertViewRow): AlertDto {
+  return {
+    id: r.id,
+    revision: Number(r.revision),
+    state: r.state,
+    grade: r.grade,
+    grades: r.grades,
+    reasons: r.reasons,
+    cautions: [...sprayCautions],
+    farm: { id: r.farm_id, name: r.farm_name, timeZone: r.farm_time_zone },
+    apiary: r.apiary_id ? { id: r.apiary_id, name: r.apiary_name! } : null,
+    spray: {
+      id: r.spray_id, state: r.spray_state, productName: r.product_name, epaRegNo: r.epa_reg_no,
+      startsAt: iso(r.starts_at), endsAt: iso(r.ends_at), blockNames: [...r.block_names].sort(byName),
+    },
+    findings: r.findings,
+    seenByMe: r.seen_by_me,
+    raisedAt: iso(r.raised_at),
+    resolvedAt: r.resolved_at ? iso(r.resolved_at) : null,
+    updatedAt: iso(r.updated_at),
+    history: r.history,
+  };
 }
 
 export interface AlertParts {
@@ -94,7 +79,7 @@ export function alertDtoOf(a: Alert, parts: AlertParts): AlertDto {
     spray: {
       id: spray.id, state: spray.state, productName: spray.productName, epaRegNo: spray.epaRegNo,
       startsAt: iso(spray.plannedWindow[0].value), endsAt: iso(spray.plannedWindow[1].value),
-      blockNames: [...parts.blockNames].sort((x, y) => (x < y ? -1 : x > y ? 1 : 0)),
+      blockNames: [...parts.blockNames].sort(byName),
     },
     findings: a.findings,
     seenByMe: parts.seenByMe,

@@ -1,9 +1,10 @@
 // The season overviews' SQL: sums over blocks, placements, commitments and invoices,
 // range overlaps with the season window, and PostGIS output for the map. Values travel as
-// replacements; the only text chosen in code is which side's column or visibility rule a
-// query reads (farm or apiary), never a value.
+// replacements or bind parameters; the only text chosen in code is which side's column or
+// visibility rule a query reads (farm or apiary), never a value. The grower's overview is
+// asked for on every visit, so its statements are prepared (planned once per connection).
 import type { Sequelize } from 'sequelize';
-import { queryOne, queryRows } from '../../db/query-rows.js';
+import { prepareStatement, queryOne, queryPrepared, queryRows, type PreparedStatement } from '../../db/query-rows.js';
 
 type Side = 'farm' | 'apiary';
 /** The season window and the moment the overview is drawn for (ISO strings). */
@@ -24,46 +25,45 @@ function visibleBlocks(kind: Side) {
          UNION SELECT d.block_id FROM drop_sites d JOIN placements p ON p.drop_site_id = d.id JOIN agreements a ON a.id = p.agreement_id WHERE a.apiary_id = :orgId)`;
 }
 
+const growerBlocksStatement = prepareStatement('overview-grower-blocks', `
+  SELECT b.id, b.name, b.crop, b.area_m2 / $squareMetresPerAcre::float8 AS acres, b.colonies_per_acre,
+    bw.bloom_start::text AS bloom_start, bw.full_bloom::text AS full_bloom, bw.petal_fall::text AS petal_fall,
+    coalesce(p.planned, 0)::int AS planned, coalesce(p.on_site, 0)::int AS on_site
+  FROM blocks b
+  LEFT JOIN current_bloom_windows bw ON bw.block_id = b.id AND bw.season = $season::int
+  LEFT JOIN LATERAL (
+    SELECT sum(pl.colonies_planned) AS planned,
+           sum(coalesce(pl.colonies_delivered, 0)) FILTER (WHERE pl.state = 'delivered' AND pl.on_site @> $now::timestamptz) AS on_site
+    FROM drop_sites d
+    JOIN placements pl ON pl.drop_site_id = d.id
+    JOIN agreements a ON a.id = pl.agreement_id AND a.state <> 'cancelled'
+    WHERE d.block_id = b.id AND pl.on_site && tstzrange($from::timestamptz, $to::timestamptz, '[)')
+  ) p ON true
+  WHERE b.farm_id = $farmId::uuid
+  ORDER BY b.name`);
+
 export function selectGrowerBlocks(sequelize: Sequelize, p: SeasonWindow & { farmId: string; season: number }) {
-  return queryRows<{
+  return queryPrepared<{
     id: string; name: string; crop: string; acres: number; colonies_per_acre: number;
     bloom_start: string | null; full_bloom: string | null; petal_fall: string | null; planned: number; on_site: number;
-  }>(
-    sequelize,
-    `SELECT b.id, b.name, b.crop, b.area_m2 / :squareMetresPerAcre AS acres, b.colonies_per_acre,
-       bw.bloom_start::text AS bloom_start, bw.full_bloom::text AS full_bloom, bw.petal_fall::text AS petal_fall,
-       coalesce(p.planned, 0)::int AS planned, coalesce(p.on_site, 0)::int AS on_site
-     FROM blocks b
-     LEFT JOIN current_bloom_windows bw ON bw.block_id = b.id AND bw.season = :season
-     LEFT JOIN LATERAL (
-       SELECT sum(pl.colonies_planned) AS planned,
-              sum(coalesce(pl.colonies_delivered, 0)) FILTER (WHERE pl.state = 'delivered' AND pl.on_site @> :now::timestamptz) AS on_site
-       FROM drop_sites d
-       JOIN placements pl ON pl.drop_site_id = d.id
-       JOIN agreements a ON a.id = pl.agreement_id AND a.state <> 'cancelled'
-       WHERE d.block_id = b.id AND pl.on_site && tstzrange(:from, :to, '[)')
-     ) p ON true
-     WHERE b.farm_id = :farmId
-     ORDER BY b.name`,
-    { replacements: { ...p, squareMetresPerAcre: SQUARE_METRES_PER_ACRE } },
-  );
+  }>(sequelize, growerBlocksStatement, { ...p, squareMetresPerAcre: SQUARE_METRES_PER_ACRE });
 }
+
+const growerColonySumsStatement = prepareStatement('overview-grower-colony-sums', `
+  SELECT
+    (SELECT coalesce(sum(hrb.colonies), 0)::int FROM hive_requests r JOIN hive_request_blocks hrb ON hrb.request_id = r.id
+      WHERE r.farm_id = $farmId::uuid AND r.state IN ('listed', 'filled', 'closed')
+        AND (r.expected_on_site IS NULL OR r.expected_on_site && tstzrange($from::timestamptz, $to::timestamptz, '[)'))) AS requested,
+    (SELECT coalesce(sum(coalesce(a.colonies, c.colonies)), 0)::int FROM commitments c
+      JOIN hive_requests r ON r.id = c.request_id
+      LEFT JOIN agreements a ON a.commitment_id = c.id
+      WHERE r.farm_id = $farmId::uuid AND c.state = 'accepted' AND (a.id IS NULL OR a.state <> 'cancelled')
+        AND coalesce(a.expected_on_site, r.expected_on_site, tstzrange($from::timestamptz, $to::timestamptz, '[)'))
+          && tstzrange($from::timestamptz, $to::timestamptz, '[)')) AS committed`);
 
 /** Colonies the farm asked for and has had accepted, for the season window. */
 export async function selectGrowerColonySums(sequelize: Sequelize, p: SeasonWindow & { farmId: string }) {
-  const row = await queryOne<{ requested: number; committed: number }>(
-    sequelize,
-    `SELECT
-       (SELECT coalesce(sum(hrb.colonies), 0)::int FROM hive_requests r JOIN hive_request_blocks hrb ON hrb.request_id = r.id
-         WHERE r.farm_id = :farmId AND r.state IN ('listed', 'filled', 'closed')
-           AND (r.expected_on_site IS NULL OR r.expected_on_site && tstzrange(:from, :to, '[)'))) AS requested,
-       (SELECT coalesce(sum(coalesce(a.colonies, c.colonies)), 0)::int FROM commitments c
-         JOIN hive_requests r ON r.id = c.request_id
-         LEFT JOIN agreements a ON a.commitment_id = c.id
-         WHERE r.farm_id = :farmId AND c.state = 'accepted' AND (a.id IS NULL OR a.state <> 'cancelled')
-           AND coalesce(a.expected_on_site, r.expected_on_site, tstzrange(:from, :to, '[)')) && tstzrange(:from, :to, '[)')) AS committed`,
-    { replacements: p },
-  );
+  const [row] = await queryPrepared<{ requested: number; committed: number }>(sequelize, growerColonySumsStatement, p);
   return row!;
 }
 
@@ -192,56 +192,62 @@ export function selectMapYards(sequelize: Sequelize, apiaryId: string) {
   );
 }
 
+/** One prepared statement per side, for the statements that read the farm's or the apiary's column. */
+const bySide = (name: string, sql: (column: string) => string): Record<Side, PreparedStatement> => ({
+  farm: prepareStatement(`${name}-farm`, sql(sideColumn('farm'))),
+  apiary: prepareStatement(`${name}-apiary`, sql(sideColumn('apiary'))),
+});
+
+const openAlertsStatements = bySide('overview-open-alerts', (column) => `
+  SELECT al.id, al.grade, al.state, s.product_name AS product, o.name AS farm_name, al.raised_at,
+    (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
+  FROM alerts al JOIN spray_plans s ON s.id = al.spray_plan_id JOIN organizations o ON o.id = al.farm_id
+  WHERE al.${column} = $orgId::uuid AND al.state <> 'resolved'
+  ORDER BY al.raised_at DESC LIMIT 20`);
+
 export function selectOpenAlerts(sequelize: Sequelize, side: Side, orgId: string) {
-  return queryRows<{ id: string; grade: string; state: string; product: string; blocks: string | null; farm_name: string; raised_at: Date }>(
-    sequelize,
-    `SELECT al.id, al.grade, al.state, s.product_name AS product, o.name AS farm_name, al.raised_at,
-       (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
-     FROM alerts al JOIN spray_plans s ON s.id = al.spray_plan_id JOIN organizations o ON o.id = al.farm_id
-     WHERE al.${sideColumn(side)} = :orgId AND al.state <> 'resolved'
-     ORDER BY al.raised_at DESC LIMIT 20`,
-    { replacements: { orgId } },
+  return queryPrepared<{ id: string; grade: string; state: string; product: string; blocks: string | null; farm_name: string; raised_at: Date }>(
+    sequelize, openAlertsStatements[side], { orgId },
   );
 }
 
+const upcomingSpraysStatement = prepareStatement('overview-upcoming-sprays', `
+  SELECT s.id, s.product_name AS product, lower(s.planned_window) AS start, upper(s.planned_window) AS "end", s.rt25_hours,
+    upper(s.exposure_window) AS residual_end, s.state,
+    (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
+  FROM spray_plans s
+  WHERE s.farm_id = $farmId::uuid AND s.state = 'planned' AND upper(s.exposure_window) >= $now::timestamptz
+  ORDER BY lower(s.planned_window) LIMIT 10`);
+
 export function selectUpcomingSprays(sequelize: Sequelize, p: { farmId: string; now: string }) {
-  return queryRows<{ id: string; product: string; start: Date; end: Date; rt25_hours: number | null; residual_end: Date; state: string; blocks: string | null }>(
-    sequelize,
-    `SELECT s.id, s.product_name AS product, lower(s.planned_window) AS start, upper(s.planned_window) AS "end", s.rt25_hours,
-       upper(s.exposure_window) AS residual_end, s.state,
-       (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
-     FROM spray_plans s
-     WHERE s.farm_id = :farmId AND s.state = 'planned' AND upper(s.exposure_window) >= :now::timestamptz
-     ORDER BY lower(s.planned_window) LIMIT 10`,
-    { replacements: p },
+  return queryPrepared<{ id: string; product: string; start: Date; end: Date; rt25_hours: number | null; residual_end: Date; state: string; blocks: string | null }>(
+    sequelize, upcomingSpraysStatement, p,
   );
 }
+
+const latestTrapCountsStatement = prepareStatement('overview-latest-trap-counts', `
+  SELECT DISTINCT ON (t.block_id, t.pest_model_id) b.name AS block_name, m.name AS pest, t.checked_on::text AS checked_on, t.moths
+  FROM pest_trap_counts t JOIN blocks b ON b.id = t.block_id JOIN pest_models m ON m.id = t.pest_model_id
+  WHERE b.farm_id = $farmId::uuid
+  ORDER BY t.block_id, t.pest_model_id, t.checked_on DESC`);
 
 /** The latest trap count per block and pest model of the farm. */
 export function selectLatestTrapCounts(sequelize: Sequelize, farmId: string) {
-  return queryRows<{ block_name: string; pest: string; checked_on: string; moths: number }>(
-    sequelize,
-    `SELECT DISTINCT ON (t.block_id, t.pest_model_id) b.name AS block_name, m.name AS pest, t.checked_on::text AS checked_on, t.moths
-     FROM pest_trap_counts t JOIN blocks b ON b.id = t.block_id JOIN pest_models m ON m.id = t.pest_model_id
-     WHERE b.farm_id = :farmId
-     ORDER BY t.block_id, t.pest_model_id, t.checked_on DESC`,
-    { replacements: { farmId } },
-  );
+  return queryPrepared<{ block_name: string; pest: string; checked_on: string; moths: number }>(sequelize, latestTrapCountsStatement, { farmId });
 }
+
+const moneyOpenStatements = bySide('overview-money-open', (column) => `
+  SELECT currency, sum(open_cents)::int AS cents, count(*)::int AS count FROM (
+    SELECT i.currency, i.total_cents
+      - coalesce((SELECT sum(p.amount_cents) FROM payments p WHERE p.invoice_id = i.id AND p.state = 'succeeded'), 0)
+      - coalesce((SELECT sum(c.amount_cents) FROM credit_notes c WHERE c.invoice_id = i.id), 0)
+      + coalesce((SELECT sum(r.amount_cents) FROM refunds r WHERE r.invoice_id = i.id AND r.state = 'succeeded'), 0) AS open_cents
+    FROM invoices i WHERE i.${column} = $orgId::uuid AND i.lifecycle = 'issued'
+  ) x WHERE open_cents > 0 GROUP BY currency ORDER BY currency`);
 
 /** Issued invoices not yet settled: total less succeeded payments and credit notes, plus succeeded refunds. */
 export function selectMoneyOpen(sequelize: Sequelize, side: Side, orgId: string) {
-  return queryRows<{ currency: string; cents: number; count: number }>(
-    sequelize,
-    `SELECT currency, sum(open_cents)::int AS cents, count(*)::int AS count FROM (
-       SELECT i.currency, i.total_cents
-         - coalesce((SELECT sum(p.amount_cents) FROM payments p WHERE p.invoice_id = i.id AND p.state = 'succeeded'), 0)
-         - coalesce((SELECT sum(c.amount_cents) FROM credit_notes c WHERE c.invoice_id = i.id), 0)
-         + coalesce((SELECT sum(r.amount_cents) FROM refunds r WHERE r.invoice_id = i.id AND r.state = 'succeeded'), 0) AS open_cents
-       FROM invoices i WHERE i.${sideColumn(side)} = :orgId AND i.lifecycle = 'issued'
-     ) x WHERE open_cents > 0 GROUP BY currency ORDER BY currency`,
-    { replacements: { orgId } },
-  );
+  return queryPrepared<{ currency: string; cents: number; count: number }>(sequelize, moneyOpenStatements[side], { orgId });
 }
 
 export function selectTimelineSprays(sequelize: Sequelize, p: { ids: string[]; from: string; to: string }) {
