@@ -63,6 +63,20 @@ describe('/api/blocks', () => {
     expect(block.stocking.source).toMatch(/Project Apis m\./);
   });
 
+  it('lists each block as it reads alone, its outline to the last digit the map drew', async () => {
+    // Coordinates as a web map gives them, with every digit of a double.
+    const drawn: GeoPolygon = {
+      type: 'Polygon',
+      coordinates: [[[-119.93173217773439, 44.91234567890123], [-119.92481231689453, 44.911785125732422], [-119.92576599121094, 44.916954040527344],
+        [-119.93173217773439, 44.91234567890123]]],
+    };
+    const created = await grower.post('/api/blocks', { name: 'Drawn Honeycrisp', crop: 'apple', outline: drawn, weatherStationId: stationId }).expect(201);
+    const alone = (await grower.get(`/api/blocks/${created.body.block.id}`).expect(200)).body.block as BlockDto;
+    expect(alone.outline).toEqual(drawn);
+    const listed = ((await grower.get('/api/blocks').expect(200)).body.blocks as BlockDto[]).find((b) => b.id === alone.id);
+    expect(listed).toEqual(alone);
+  });
+
   it('refuses a self-intersecting outline with a 400 naming the outline, and stores nothing', async () => {
     const res = await grower.post('/api/blocks', { name: 'Bow tie', crop: 'pear', outline: bowTie });
     expect(res.status).toBe(400);

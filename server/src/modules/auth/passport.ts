@@ -5,22 +5,11 @@ import { Strategy as LocalStrategy } from 'passport-local';
 import type { Models } from '../../db/models/index.js';
 import { toAuthUser, type AuthUserSource } from './auth-user.js';
 import { verifyPassword, decoyHash } from './passwords.js';
+import { selectSessionUser } from './auth.queries.js';
 
 export async function findActiveUser(models: Models, where: { id?: string; email?: string }) {
   const user = await models.User.findOne({ where, include: [{ model: models.Organization, as: 'organization' }] });
   return user && !user.disabledAt ? user : null;
-}
-
-/** The session's user on every request: only the columns it needs, as a plain row. */
-async function findSessionUser(models: Models, id: string): Promise<AuthUserSource | null> {
-  const row = await models.User.findOne({
-    where: { id, disabledAt: null },
-    attributes: ['id', 'email', 'name', 'role', 'units', 'timeZone'],
-    include: [{ model: models.Organization, as: 'organization', attributes: ['id', 'kind', 'name', 'timeZone'] }],
-    raw: true,
-    nest: true,
-  });
-  return row as AuthUserSource | null;
 }
 
 export type AppPassport = ReturnType<typeof createPassport>;
@@ -41,7 +30,7 @@ export function createPassport(models: Models) {
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser(async (id: string, done) => {
     try {
-      const user = await findSessionUser(models, id);
+      const user = await selectSessionUser(models.User.sequelize!, id);
       done(null, user ? toAuthUser(user) : false);
     } catch (err) {
       done(err);

@@ -9,8 +9,17 @@ import type { Block } from '../../db/models/block.model.js';
 import type { BloomWindow } from '../../db/models/bloom-window.model.js';
 import { plainGeoJson } from '../../db/geojson.js';
 
+/** What a bloom window's DTO is made from: the model's fields, or the block list's row. */
+export type BloomWindowFields = Pick<BloomWindow, 'id' | 'blockId' | 'season' | 'bloomStart' | 'fullBloom' | 'petalFall' | 'confidenceNote' | 'revisedBy' | 'createdAt'>
+  & { reviser?: { name: string } | null };
+
+/** What a block's DTO is made from: the model's fields, or the block list's row. */
+export type BlockFields = Pick<Block, 'id' | 'farmId' | 'name' | 'crop' | 'variety' | 'pollinizerVariety' | 'yearPlanted' | 'treesPerAcre' | 'notes'
+  | 'outline' | 'location' | 'enteredAcres' | 'areaM2' | 'coloniesPerAcre' | 'weatherStationId' | 'degreeDayStart' | 'createdAt' | 'updatedAt'>
+  & { weatherStation?: { name: string } | null };
+
 /** The window as the API shows it; include the `reviser` (name) when reading it. */
-export function toBloomWindowDto(w: BloomWindow): BloomWindowDto {
+export function toBloomWindowDto(w: BloomWindowFields): BloomWindowDto {
   return {
     id: w.id, blockId: w.blockId, season: w.season, bloomStart: w.bloomStart, fullBloom: w.fullBloom,
     petalFall: w.petalFall, confidenceNote: w.confidenceNote,
@@ -20,7 +29,7 @@ export function toBloomWindowDto(w: BloomWindow): BloomWindowDto {
 }
 
 /** A block as the API shows it; include `weatherStation` (name) when reading it. */
-export function toBlockDto(b: Block, current: BloomWindow | null): BlockDto {
+export function toBlockDto(b: BlockFields, current: BloomWindowFields | null): BlockDto {
   const acres = squareMetresToAcres(b.areaM2);
   const crop = cropInfo(b.crop);
   const range = crop?.coloniesPerAcre ?? { min: b.coloniesPerAcre, max: b.coloniesPerAcre, typical: b.coloniesPerAcre };

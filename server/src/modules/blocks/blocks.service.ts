@@ -13,7 +13,7 @@ import type { Block } from '../../db/models/block.model.js';
 import type { BloomWindow } from '../../db/models/bloom-window.model.js';
 import { badRequest, conflict, notFound } from '../../errors/http-errors.js';
 import { toBlockDto } from './block-dto.js';
-import { outlineFacts } from './blocks.queries.js';
+import { outlineFacts, selectBlockList } from './blocks.queries.js';
 import { blockPlaceChanged } from '../alerts/conflict-rechecks.js';
 
 type CreateInput = z.output<typeof blockBody>;
@@ -83,7 +83,7 @@ export function createBlocksService(ctx: AppContext) {
 
   return {
     async list(farmId: string): Promise<BlockDto[]> {
-      return toDtos(await blocksOf(farmId).findAll({ include: withStation, order: [['name', 'ASC']] }));
+      return (await selectBlockList(sequelize, farmId)).map(({ block, window }) => toBlockDto(block, window));
     },
 
     get,
