@@ -3,7 +3,7 @@
 // say different things.
 // - Strength shortfall: a checked group meets the agreement when its sample averages at
 //   least the minimum frames of bees (the frames its weak colonies lack are made up by its
-//   strong ones; Rutgers NJ recommendations, TRADE.md §2). Only a group that does not meet
+//   strong ones; Rutgers NJ recommendations). Only a group that does not meet
 //   it is paid at the reduced rate, for its estimated share of colonies below the minimum
 //   (the sampled share applied to the group, half up, never more than were delivered);
 //   at a reduced rate of 0 those colonies are not charged, and the clause says so.

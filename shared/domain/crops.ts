@@ -1,6 +1,7 @@
 // The crops Pollenpact knows, with the default stocking rate (colonies per acre) and the
 // default minimum colony strength (frames of bees) a request starts from, each with its
-// published source (TRADE.md §1 and §2). Growers may set other values per block/request.
+// source named beside it (stockingSource, minFramesSource; where none is published:
+// common practice, no source). Growers may set other values per block/request.
 
 export const cropKeys = [
   'almond', 'apple', 'pear', 'sweet-cherry', 'plum', 'peach', 'highbush-blueberry',

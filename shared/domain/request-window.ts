@@ -14,7 +14,7 @@ export type ArriveRule = { rule: 'bloom-stage'; bloomPercent: number } | { rule:
 export type DepartRule = { rule: 'petal-fall' } | { rule: 'date'; on: string };
 
 /**
- * Usual move-in stage per crop, as percent of flowers open (TRADE.md §2): apple about 5%
+ * Usual move-in stage per crop, as percent of flowers open: apple about 5%
  * (Delaplane & Mayer 2000), almond about 10% (Almond Board of California), pear 10–20%
  * (OMAFRA; we take 10), highbush blueberry 5% (WSU). Others: 5%, common practice, no source.
  */

@@ -1,5 +1,5 @@
 // Stocking: how many colonies a block needs. Colonies needed = acres x colonies per acre,
-// rounded up to whole colonies (TRADE.md §1).
+// rounded up to whole colonies (common practice, no source).
 
 export function coloniesNeeded(acres: number, coloniesPerAcre: number): number {
   if (!(acres >= 0) || !(coloniesPerAcre >= 0)) throw new RangeError('acres and colonies per acre must be zero or more');

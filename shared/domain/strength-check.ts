@@ -3,7 +3,7 @@
 // follows the Pennsylvania Department of Agriculture's colony strength program and the
 // Rutgers (New Jersey) recommendations; a group passes when the frames its weak colonies
 // lack are made up by the frames its strong colonies have above the minimum (Rutgers),
-// which is the same as a sample average at or above the minimum (TRADE.md §2).
+// which is the same as a sample average at or above the minimum.
 import { cropInfo } from './crops.js';
 
 export const MINIMUM_SAMPLE_SHARE = 0.1;
@@ -80,8 +80,10 @@ export function summarizeStrength(input: {
 
 /**
  * Starting values for the minimum strength a grower asks, per crop: frames of bees from
- * the crop table (crops.ts, TRADE.md §2); for apple also 6 frames of brood covered by bees
- * (Delaplane & Mayer 2000, Crop Pollination by Bees, ch. 17). The grower may change them.
+ * the crop table (crops.ts, which names each value's source: Almond Board of California,
+ * Delaplane & Mayer 2000, or common practice, no source); for apple also 6 frames of brood
+ * covered by bees (Delaplane & Mayer 2000, Crop Pollination by Bees, ch. 17). The grower
+ * may change them.
  */
 export function defaultMinimumStrength(crop: string): { framesOfBees: number; framesOfBrood: number | null } {
   return { framesOfBees: cropInfo(crop)?.minFramesOfBees ?? 6, framesOfBrood: crop === 'apple' ? 6 : null };

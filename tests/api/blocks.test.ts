@@ -108,7 +108,7 @@ describe('/api/blocks', () => {
   it('gives the same colonies needed on the block page and the season overview (12.3333334 acres at 3 per acre)', async () => {
     const res = await grower.post('/api/blocks', { name: 'Third bench', crop: 'apple', enteredAcres: 12.3333334, coloniesPerAcre: 3 }).expect(201);
     // 12.3333334 x 3 = 37.0000002: 37 colonies, the product rounded to a millionth of a colony before rounding up
-    // (TRADE.md §1: acres x rate, rounded up; the tolerance is common practice, no source).
+    // (acres x rate, rounded up, and the tolerance: common practice, no source).
     expect(res.body.block.coloniesNeeded).toBe(37);
     const overview = (await grower.get('/api/dashboard/grower').expect(200)).body;
     const row = overview.blocks.find((b: { id: string }) => b.id === res.body.block.id);

@@ -76,7 +76,7 @@ describe('bloom forecasts and windows', () => {
   it('seeds the published apple stage thresholds with their source', async () => {
     const res = await grower.get('/api/bloom/stage-thresholds?crop=apple').expect(200);
     const rows = res.body.thresholds as StageThresholdDto[];
-    // Source: Cornell / UMass fruit newsletters (TRADE.md §4): base 43 °F from March 1; green tip 100–120,
+    // Source: Cornell / UMass fruit newsletters: base 43 °F from March 1; green tip 100–120,
     // pink 267–316, petal fall 439–523 DD°F. Bloom 330–400 is our interpolation; silver tip, half-inch green
     // and tight cluster (one stage per WSU critical-temperature row) are from memory, each labelled as such.
     expect(rows.map((r) => [r.stage, r.ddLowF, r.ddHighF, r.baseF, r.startMonthDay])).toEqual([

@@ -35,7 +35,7 @@ describe('strength shortfall: the clause and the invoice', () => {
   });
 
   it('charges nothing reduced for frames [4, 8, 8, 8] at a minimum of 6: the group passes on average', () => {
-    // Rutgers NJ (TRADE.md §2): a group passes when its weak colonies are offset by strong ones. 28 frames / 4 = 7 >= 6.
+    // Rutgers NJ recommendations: a group passes when its weak colonies are offset by strong ones. 28 frames / 4 = 7 >= 6.
     expect(groupMeetsStrength({ coloniesInGroup: 40, framesOfBees: [4, 8, 8, 8] }, 6)).toBe(true);
     const priced = price([4, 8, 8, 8]);
     expect(priced.lines).toEqual([{ kind: 'colonies-full-rate', placementId: 'p', quantity: 40, unitCents: 6500, amountCents: 260_000 }]);

@@ -3,7 +3,7 @@ import { describe, it, expect } from 'vitest';
 import { accumulateDegreeDays } from '../../shared/domain/degree-days.js';
 import { predictStages, currentStage, suggestBloomWindow } from '../../shared/domain/bloom-forecast.js';
 
-// Source: Cornell / UMass fruit newsletters (TRADE.md §4): apple base 43 °F from March 1,
+// Source: Cornell / UMass fruit newsletters: apple base 43 °F from March 1,
 // green tip about 100–120 DD, pink 267–316, petal fall about 439–523. Bloom 330–400 is our
 // interpolation between pink and petal fall (from memory, not a published range).
 const apple = [

@@ -96,7 +96,7 @@ describe('suggested cover-spray days', () => {
   });
 
   it('says that the label and a licensed applicator decide', () => {
-    // EPA label practice (TRADE.md §3): the label is the law; local regulations and licensed applicators decide.
+    // The label is the law; local regulations and licensed applicators decide (common practice, no source).
     expect(sprayWindowCaution).toMatch(/label is the law/);
     expect(sprayWindowCaution).toMatch(/licensed applicator/);
   });

@@ -1,5 +1,7 @@
 // When colonies must be on site. The bloom-stage model (flowers opening evenly from first
-// bloom to full bloom) is common practice, no source; the move-in stages are TRADE.md §2.
+// bloom to full bloom) is common practice, no source; the move-in stages are sourced per
+// crop in request-window.ts (apple: Delaplane & Mayer 2000; almond: Almond Board of
+// California).
 import { describe, it, expect } from 'vitest';
 import { bloomStageDate, defaultArrivalBloomPercent, expectedOnSite, WindowError } from '../../shared/domain/request-window.js';
 

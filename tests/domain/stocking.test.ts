@@ -5,7 +5,7 @@ import { crops, cropInfo } from '../../shared/domain/crops.js';
 
 describe('coloniesNeeded', () => {
   it('is acres x colonies per acre, rounded up to whole colonies', () => {
-    // Source: TRADE.md §1 rule: colonies needed = acres x rate, rounded up (common practice, no source).
+    // Colonies needed = acres x rate, rounded up (common practice, no source).
     expect(coloniesNeeded(20, 2)).toBe(40);
     expect(coloniesNeeded(20.1, 2)).toBe(41);
     expect(coloniesNeeded(10, 2.2)).toBe(22); // no floating-point overshoot

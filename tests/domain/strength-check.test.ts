@@ -1,8 +1,8 @@
 // Strength checks: the sample-size rule and the group's averages against worked numbers.
 // Source for the rule: Pennsylvania Department of Agriculture colony strength program and
 // Rutgers NJ Agricultural Experiment Station recommendations (open a random sample of at
-// least 10% of the colonies; colonies below minimum may be offset by those above), as
-// summarised in TRADE.md §2 (rating B). The worked numbers below are computed by hand.
+// least 10% of the colonies; colonies below minimum may be offset by those above); a
+// published rule of thumb. The worked numbers below are computed by hand.
 import { describe, it, expect } from 'vitest';
 import { minimumSampleSize, summarizeStrength, defaultMinimumStrength } from '../../shared/domain/strength-check.js';
 

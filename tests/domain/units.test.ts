@@ -27,7 +27,7 @@ describe('temperature', () => {
     expect(fahrenheitToCelsius(212)).toBe(100);
     expect(fahrenheitToCelsius(-40)).toBe(-40);
     expect(celsiusToFahrenheit(100)).toBe(212);
-    // TRADE.md §3: bees inactive below 55 °F (12.8 °C), California pollinator poster.
+    // Source: California pest control advisers' pollinator poster: bees inactive below 55 °F (12.8 °C).
     expect(fahrenheitToCelsius(55)).toBeCloseTo(12.8, 1);
   });
 

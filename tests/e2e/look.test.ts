@@ -87,7 +87,8 @@ describe('the look: main pages for each side', () => {
       await checkPage(page, `look-grower-home-${size.name}`, '/', async (p) => {
         await visible(p, 'Upper Terrace Apples');
         await visible(p, 'Colonies needed');
-        // 24 acres x 2 + 12 acres x 3 = 84 colonies needed (acres x colonies per acre, rounded up; TRADE.md §1).
+        // 24 acres x 2 + 12 acres x 3 = 84 colonies needed (acres x colonies per acre, rounded up;
+        // common practice, no source).
         await expect.poll(() => p.locator('.pp-stat').first().innerText()).toContain('84');
         await visible(p, 'In bloom');
         // Lower Bench: 36 needed, 24 planned.

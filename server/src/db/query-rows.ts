@@ -5,6 +5,7 @@
 // A hot statement may be prepared once per connection (queryPrepared).
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import type { ClientBase } from 'pg';
+import { createHash } from 'node:crypto';
 
 export interface QueryOptions {
   /** Named replacements (`:name`), escaped by Sequelize. */
@@ -45,6 +46,21 @@ export function prepareStatement(name: string, sql: string): PreparedStatement {
     return `$${params.indexOf(param) + 1}`;
   });
   return { name, text, params };
+}
+
+const statementsByText = new Map<string, PreparedStatement>();
+
+/**
+ * The prepared statement for a text a query builds from its filters: one per distinct text
+ * (so one per combination of filters), named after the query and a hash of the text.
+ */
+export function statementFor(name: string, sql: string): PreparedStatement {
+  let statement = statementsByText.get(sql);
+  if (!statement) {
+    statement = prepareStatement(`${name}-${createHash('sha1').update(sql).digest('hex').slice(0, 10)}`, sql);
+    statementsByText.set(sql, statement);
+  }
+  return statement;
 }
 
 /**

@@ -1,7 +1,12 @@
 // The published reference data Pollenpact starts from, each row labelled with its source:
-// stage thresholds in degree days for apple, pear and sweet cherry (TRADE.md §4) and critical
-// bud temperatures (TRADE.md §6). Inserted by migrations 0004 and 0011 and again by the demo
-// seed after it empties the tables; rows already there (perhaps edited) are left alone.
+// stage thresholds in degree days for apple (Cornell / UMass fruit newsletters, base 43 °F
+// from March 1; the stages between the published ones are from memory, labelled so), pear
+// and sweet cherry (stage order from WSU Extension EB0978 / EB1128; degree days common
+// practice, no source), and critical bud temperatures (WSU Extension EB0913 apple, EB0978
+// pear, EB1128 sweet cherry, as republished by Penn State Extension "Orchard Frost –
+// Critical Temperatures for Various Fruits"). Inserted by migrations 0004 and 0011 and
+// again by the demo seed after it empties the tables; rows already there (perhaps edited)
+// are left alone.
 import type { Sequelize } from 'sequelize';
 import { insertReferenceRows } from './bloom.queries.js';
 

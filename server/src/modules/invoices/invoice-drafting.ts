@@ -45,7 +45,7 @@ export async function priceAgreement(db: InvoiceDatabase, agreement: AgreementRo
   const priced = priceInvoice({
     terms: {
       pricePerColonyCents: agreement.price_per_colony_cents, depositShareBp: agreement.deposit_share_bp, balanceDueDays: agreement.balance_due_days,
-      belowMinimumRateBp: agreement.below_minimum_rate_bp, extraMoveFeeCents: agreement.extra_move_fee_cents, minFramesOfBees: Number(agreement.min_frames_of_bees),
+      belowMinimumRateBp: agreement.below_minimum_rate_bp, extraMoveFeeCents: agreement.extra_move_fee_cents, minFramesOfBees: agreement.min_frames_of_bees,
     },
     placements: toPrice, extraMoves, taxRateBp: agreement.tax_rate_bp, timeZone: agreement.time_zone,
   });

@@ -1,9 +1,9 @@
 // The invoices module's SQL, where the ORM cannot say it well: invoice rows with what has
 // been credited and paid summed in, the agreement and placement rows that price a
-// draft, and the report aggregates. Values always travel as
-// replacements; pass the caller's transaction so the query runs on its connection.
+// draft, and the report aggregates. Values always travel as replacements or bind
+// parameters; pass the caller's transaction so the query runs on its connection.
 import type { Sequelize, Transaction } from 'sequelize';
-import { queryOne, queryRows } from '../../db/query-rows.js';
+import { queryOne, queryPrepared, queryRows, statementFor } from '../../db/query-rows.js';
 import type { AuthUser } from '../auth/auth-user.js';
 
 export interface InvoiceRow {
@@ -66,12 +66,12 @@ export interface InvoiceFilter {
  * sees those issued to it.
  */
 export function selectInvoices(sequelize: Sequelize, scope: InvoiceScope, filter: InvoiceFilter = {}): Promise<InvoiceRow[]> {
-  const conditions = [scope.organizationKind === 'apiary' ? 'i.apiary_id = :orgId' : "i.farm_id = :orgId AND i.lifecycle <> 'draft'"];
-  if (filter.id !== undefined) conditions.push('i.id = :id');
+  const conditions = [scope.organizationKind === 'apiary' ? 'i.apiary_id = $orgId::uuid' : "i.farm_id = $orgId::uuid AND i.lifecycle <> 'draft'"];
+  if (filter.id !== undefined) conditions.push('i.id = $id::uuid');
   if (filter.issuedOrVoidOnly) conditions.push("i.lifecycle <> 'draft'");
-  return queryRows<InvoiceRow>(sequelize, `${invoiceSelect} WHERE ${conditions.join(' AND ')} ORDER BY i.created_at DESC, i.id`, {
-    replacements: { orgId: scope.organizationId, id: filter.id ?? null }, transaction: filter.transaction,
-  });
+  // The invoice list is read on most pages: one prepared statement per combination of conditions.
+  const statement = statementFor('invoices', `${invoiceSelect} WHERE ${conditions.join(' AND ')} ORDER BY i.created_at DESC, i.id`);
+  return queryPrepared<InvoiceRow>(sequelize, statement, { orgId: scope.organizationId, id: filter.id ?? null }, filter.transaction);
 }
 
 /** One invoice row by id alone (no user scope): for webhooks and jobs. */

@@ -1,8 +1,10 @@
 // The searches over hive requests the ORM cannot say well: the summary of each request
 // with its committed colonies, crops and (for a beekeeper) the PostGIS distance from the
 // apiary's nearest yard, filtered by crop and by tstzrange overlap, ordered by distance.
+// The request list is read on most pages: each combination of filters is one prepared
+// statement (planned once per connection), values as bind parameters.
 import type { Sequelize, Transaction } from 'sequelize';
-import { queryRows } from '../../db/query-rows.js';
+import { queryPrepared, statementFor } from '../../db/query-rows.js';
 import type { RequestState } from '../../../../shared/schemas/requests.js';
 
 export type RequestSummaryRow = {
@@ -29,21 +31,21 @@ const distanceFromYards = `(SELECT min(ST_Distance(y.location::geography, t.geom
     SELECT d.location AS geom FROM drop_sites d WHERE d.request_id = r.id
     UNION ALL
     SELECT coalesce(b.location, ST_Centroid(b.outline)) FROM hive_request_blocks hb JOIN blocks b ON b.id = hb.block_id WHERE hb.request_id = r.id
-  ) t WHERE y.apiary_id = :org AND t.geom IS NOT NULL)`;
+  ) t WHERE y.apiary_id = $org::uuid AND t.geom IS NOT NULL)`;
 
 /** Requests a beekeeper may see: open ones, and any it has committed to. */
-const apiaryVisible = `(r.state IN ('listed', 'filled') OR EXISTS (SELECT 1 FROM commitments c WHERE c.request_id = r.id AND c.apiary_id = :org))`;
+const apiaryVisible = `(r.state IN ('listed', 'filled') OR EXISTS (SELECT 1 FROM commitments c WHERE c.request_id = r.id AND c.apiary_id = $org::uuid))`;
 
 export function requestSummaries(sequelize: Sequelize, search: RequestSearch, transaction?: Transaction): Promise<RequestSummaryRow[]> {
-  const where = [search.isApiary ? apiaryVisible : 'r.farm_id = :org'];
-  if (search.id) where.push('r.id = :id');
-  if (search.crop) where.push('EXISTS (SELECT 1 FROM hive_request_blocks hb JOIN blocks b ON b.id = hb.block_id WHERE hb.request_id = r.id AND b.crop = :crop)');
-  if (search.from) where.push('r.expected_on_site && tstzrange(CAST(:from AS date)::timestamptz, NULL)');
-  if (search.to) where.push('r.expected_on_site && tstzrange(NULL, (CAST(:to AS date) + 1)::timestamptz)');
-  const nearEnough = search.isApiary && search.maxDistanceKm ? 'WHERE q.distance_km <= :maxDistanceKm' : '';
-  return queryRows<RequestSummaryRow>(
+  const where = [search.isApiary ? apiaryVisible : 'r.farm_id = $org::uuid'];
+  if (search.id) where.push('r.id = $id::uuid');
+  if (search.crop) where.push('EXISTS (SELECT 1 FROM hive_request_blocks hb JOIN blocks b ON b.id = hb.block_id WHERE hb.request_id = r.id AND b.crop = $crop::text)');
+  if (search.from) where.push('r.expected_on_site && tstzrange($from::date::timestamptz, NULL)');
+  if (search.to) where.push('r.expected_on_site && tstzrange(NULL, ($to::date + 1)::timestamptz)');
+  const nearEnough = search.isApiary && search.maxDistanceKm ? 'WHERE q.distance_km <= $maxDistanceKm::float8' : '';
+  return queryPrepared<RequestSummaryRow>(
     sequelize,
-    `SELECT * FROM (
+    statementFor('request-summaries', `SELECT * FROM (
        SELECT r.id, r.farm_id, o.name AS farm_name, r.title, r.state, r.colonies_requested,
          (SELECT coalesce(sum(c.colonies), 0)::int FROM commitments c WHERE c.request_id = r.id AND c.state IN ('offered', 'accepted')) AS committed,
          (SELECT array_agg(DISTINCT b.crop ORDER BY b.crop) FROM hive_request_blocks hb JOIN blocks b ON b.id = hb.block_id WHERE hb.request_id = r.id) AS crops,
@@ -53,13 +55,11 @@ export function requestSummaries(sequelize: Sequelize, search: RequestSearch, tr
        FROM hive_requests r JOIN organizations o ON o.id = r.farm_id
        WHERE ${where.join(' AND ')}) q
      ${nearEnough}
-     ORDER BY ${search.isApiary ? 'q.distance_km NULLS LAST,' : ''} q.on_site_from NULLS LAST, q.title, q.id`,
+     ORDER BY ${search.isApiary ? 'q.distance_km NULLS LAST,' : ''} q.on_site_from NULLS LAST, q.title, q.id`),
     {
-      replacements: {
-        org: search.organizationId, id: search.id ?? null, crop: search.crop ?? null, from: search.from ?? null, to: search.to ?? null,
-        maxDistanceKm: search.maxDistanceKm ?? null,
-      },
-      transaction,
+      org: search.organizationId, id: search.id ?? null, crop: search.crop ?? null, from: search.from ?? null, to: search.to ?? null,
+      maxDistanceKm: search.maxDistanceKm ?? null,
     },
+    transaction,
   );
 }

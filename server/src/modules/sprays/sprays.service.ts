@@ -50,7 +50,7 @@ export function createSpraysService(ctx: AppContext) {
     const ids = plans.map((p) => p.id);
     const blocks = await blocksOfSprays(ctx.sequelize, ids);
     const open = await Alert.count({ where: { sprayPlanId: ids, state: { [Op.ne]: 'resolved' } }, group: ['sprayPlanId'] });
-    const openBySpray = new Map(open.map((o) => [String(o.sprayPlanId), Number(o.count)]));
+    const openBySpray = new Map(open.map((o) => [String(o.sprayPlanId), o.count]));
     return plans.map((p) => dtoOf(p, blocks.get(p.id) ?? [], openBySpray.get(p.id) ?? 0));
   }
 
@@ -114,7 +114,7 @@ export function createSpraysService(ctx: AppContext) {
       const farm = await Organization.findByPk(farmId, { attributes: ['sprayBufferM'] });
       const check = await runConflictCheck(ctx.sequelize, {
         farmId, blockIds, from: new Date(input.startsAt), to: new Date(input.endsAt), ld50UgPerBee: input.ld50UgPerBee, rt25Hours: input.rt25Hours,
-        bufferM: Number(farm!.sprayBufferM), noticedAt: ctx.now(),
+        bufferM: farm!.sprayBufferM, noticedAt: ctx.now(),
       });
       return publicCheck(check);
     },
