@@ -25,7 +25,8 @@ function visibleBlocks(kind: Side) {
          UNION SELECT d.block_id FROM drop_sites d JOIN placements p ON p.drop_site_id = d.id JOIN agreements a ON a.id = p.agreement_id WHERE a.apiary_id = :orgId)`;
 }
 
-const growerBlocksStatement = prepareStatement('overview-grower-blocks', `
+// The grower's overview, in parts (one statement below runs them all).
+const growerBlocksSql = `
   SELECT b.id, b.name, b.crop, b.area_m2 / $squareMetresPerAcre::float8 AS acres, b.colonies_per_acre,
     bw.bloom_start::text AS bloom_start, bw.full_bloom::text AS full_bloom, bw.petal_fall::text AS petal_fall,
     coalesce(p.planned, 0)::int AS planned, coalesce(p.on_site, 0)::int AS on_site
@@ -40,16 +41,9 @@ const growerBlocksStatement = prepareStatement('overview-grower-blocks', `
     WHERE d.block_id = b.id AND pl.on_site && tstzrange($from::timestamptz, $to::timestamptz, '[)')
   ) p ON true
   WHERE b.farm_id = $farmId::uuid
-  ORDER BY b.name`);
+  ORDER BY b.name`;
 
-export function selectGrowerBlocks(sequelize: Sequelize, p: SeasonWindow & { farmId: string; season: number }) {
-  return queryPrepared<{
-    id: string; name: string; crop: string; acres: number; colonies_per_acre: number;
-    bloom_start: string | null; full_bloom: string | null; petal_fall: string | null; planned: number; on_site: number;
-  }>(sequelize, growerBlocksStatement, { ...p, squareMetresPerAcre: SQUARE_METRES_PER_ACRE });
-}
-
-const growerColonySumsStatement = prepareStatement('overview-grower-colony-sums', `
+const growerColonySumsSql = `
   SELECT
     (SELECT coalesce(sum(hrb.colonies), 0)::int FROM hive_requests r JOIN hive_request_blocks hrb ON hrb.request_id = r.id
       WHERE r.farm_id = $farmId::uuid AND r.state IN ('listed', 'filled', 'closed')
@@ -59,13 +53,7 @@ const growerColonySumsStatement = prepareStatement('overview-grower-colony-sums'
       LEFT JOIN agreements a ON a.commitment_id = c.id
       WHERE r.farm_id = $farmId::uuid AND c.state = 'accepted' AND (a.id IS NULL OR a.state <> 'cancelled')
         AND coalesce(a.expected_on_site, r.expected_on_site, tstzrange($from::timestamptz, $to::timestamptz, '[)'))
-          && tstzrange($from::timestamptz, $to::timestamptz, '[)')) AS committed`);
-
-/** Colonies the farm asked for and has had accepted, for the season window. */
-export async function selectGrowerColonySums(sequelize: Sequelize, p: SeasonWindow & { farmId: string }) {
-  const [row] = await queryPrepared<{ requested: number; committed: number }>(sequelize, growerColonySumsStatement, p);
-  return row!;
-}
+          && tstzrange($from::timestamptz, $to::timestamptz, '[)')) AS committed`;
 
 // Accepted commitments count from the request's window until the agreement sets its own.
 const committedSql = `
@@ -198,56 +186,82 @@ const bySide = (name: string, sql: (column: string) => string): Record<Side, Pre
   apiary: prepareStatement(`${name}-apiary`, sql(sideColumn('apiary'))),
 });
 
-const openAlertsStatements = bySide('overview-open-alerts', (column) => `
+const openAlertsSql = (column: string) => `
   SELECT al.id, al.grade, al.state, s.product_name AS product, o.name AS farm_name, al.raised_at,
     (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
   FROM alerts al JOIN spray_plans s ON s.id = al.spray_plan_id JOIN organizations o ON o.id = al.farm_id
   WHERE al.${column} = $orgId::uuid AND al.state <> 'resolved'
-  ORDER BY al.raised_at DESC LIMIT 20`);
+  ORDER BY al.raised_at DESC LIMIT 20`;
 
-export function selectOpenAlerts(sequelize: Sequelize, side: Side, orgId: string) {
-  return queryPrepared<{ id: string; grade: string; state: string; product: string; blocks: string | null; farm_name: string; raised_at: Date }>(
-    sequelize, openAlertsStatements[side], { orgId },
-  );
-}
-
-const upcomingSpraysStatement = prepareStatement('overview-upcoming-sprays', `
+const upcomingSpraysSql = `
   SELECT s.id, s.product_name AS product, lower(s.planned_window) AS start, upper(s.planned_window) AS "end", s.rt25_hours,
     upper(s.exposure_window) AS residual_end, s.state,
     (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
   FROM spray_plans s
   WHERE s.farm_id = $farmId::uuid AND s.state = 'planned' AND upper(s.exposure_window) >= $now::timestamptz
-  ORDER BY lower(s.planned_window) LIMIT 10`);
+  ORDER BY lower(s.planned_window) LIMIT 10`;
 
-export function selectUpcomingSprays(sequelize: Sequelize, p: { farmId: string; now: string }) {
-  return queryPrepared<{ id: string; product: string; start: Date; end: Date; rt25_hours: number | null; residual_end: Date; state: string; blocks: string | null }>(
-    sequelize, upcomingSpraysStatement, p,
-  );
-}
-
-const latestTrapCountsStatement = prepareStatement('overview-latest-trap-counts', `
+/** The latest trap count per block and pest model of the farm. */
+const latestTrapCountsSql = `
   SELECT DISTINCT ON (t.block_id, t.pest_model_id) b.name AS block_name, m.name AS pest, t.checked_on::text AS checked_on, t.moths
   FROM pest_trap_counts t JOIN blocks b ON b.id = t.block_id JOIN pest_models m ON m.id = t.pest_model_id
   WHERE b.farm_id = $farmId::uuid
-  ORDER BY t.block_id, t.pest_model_id, t.checked_on DESC`);
+  ORDER BY t.block_id, t.pest_model_id, t.checked_on DESC`;
 
-/** The latest trap count per block and pest model of the farm. */
-export function selectLatestTrapCounts(sequelize: Sequelize, farmId: string) {
-  return queryPrepared<{ block_name: string; pest: string; checked_on: string; moths: number }>(sequelize, latestTrapCountsStatement, { farmId });
-}
-
-const moneyOpenStatements = bySide('overview-money-open', (column) => `
+/** Issued invoices not yet settled: total less succeeded payments and credit notes, plus succeeded refunds. */
+const moneyOpenSql = (column: string) => `
   SELECT currency, sum(open_cents)::int AS cents, count(*)::int AS count FROM (
     SELECT i.currency, i.total_cents
       - coalesce((SELECT sum(p.amount_cents) FROM payments p WHERE p.invoice_id = i.id AND p.state = 'succeeded'), 0)
       - coalesce((SELECT sum(c.amount_cents) FROM credit_notes c WHERE c.invoice_id = i.id), 0)
       + coalesce((SELECT sum(r.amount_cents) FROM refunds r WHERE r.invoice_id = i.id AND r.state = 'succeeded'), 0) AS open_cents
     FROM invoices i WHERE i.${column} = $orgId::uuid AND i.lifecycle = 'issued'
-  ) x WHERE open_cents > 0 GROUP BY currency ORDER BY currency`);
+  ) x WHERE open_cents > 0 GROUP BY currency ORDER BY currency`;
 
-/** Issued invoices not yet settled: total less succeeded payments and credit notes, plus succeeded refunds. */
+export type OpenAlertRow = { id: string; grade: string; state: string; product: string; blocks: string | null; farm_name: string; raised_at: Date | string };
+export type MoneyOpenRow = { currency: string; cents: number; count: number };
+export type UpcomingSprayRow = { id: string; product: string; start: string; end: string; rt25_hours: number | null; residual_end: string; state: string; blocks: string | null };
+export type TrapCountRow = { block_name: string; pest: string; checked_on: string; moths: number };
+export type GrowerBlockRow = {
+  id: string; name: string; crop: string; acres: number; colonies_per_acre: number;
+  bloom_start: string | null; full_bloom: string | null; petal_fall: string | null; planned: number; on_site: number;
+};
+
+const openAlertsStatements = bySide('overview-open-alerts', openAlertsSql);
+const moneyOpenStatements = bySide('overview-money-open', moneyOpenSql);
+
+export function selectOpenAlerts(sequelize: Sequelize, side: Side, orgId: string) {
+  return queryPrepared<OpenAlertRow>(sequelize, openAlertsStatements[side], { orgId });
+}
+
 export function selectMoneyOpen(sequelize: Sequelize, side: Side, orgId: string) {
-  return queryPrepared<{ currency: string; cents: number; count: number }>(sequelize, moneyOpenStatements[side], { orgId });
+  return queryPrepared<MoneyOpenRow>(sequelize, moneyOpenStatements[side], { orgId });
+}
+
+// The grower's overview is asked for on every visit: its six parts in one round trip, each
+// as JSON (times as ISO text), in the order each part sorts by.
+const growerOverviewStatement = prepareStatement('overview-grower', `
+  SELECT
+    (SELECT coalesce(json_agg(part ORDER BY part.name), '[]') FROM (${growerBlocksSql}) part) AS blocks,
+    (SELECT row_to_json(part) FROM (${growerColonySumsSql}) part) AS sums,
+    (SELECT coalesce(json_agg(part ORDER BY part.raised_at DESC), '[]') FROM (${openAlertsSql(sideColumn('farm'))}) part) AS open_alerts,
+    (SELECT coalesce(json_agg(part ORDER BY part.start), '[]') FROM (${upcomingSpraysSql}) part) AS upcoming_sprays,
+    (SELECT coalesce(json_agg(part), '[]') FROM (${latestTrapCountsSql}) part) AS trap_counts,
+    (SELECT coalesce(json_agg(part ORDER BY part.currency), '[]') FROM (${moneyOpenSql(sideColumn('farm'))}) part) AS money`);
+
+export interface GrowerOverviewParts {
+  blocks: GrowerBlockRow[];
+  sums: { requested: number; committed: number };
+  open_alerts: OpenAlertRow[];
+  upcoming_sprays: UpcomingSprayRow[];
+  trap_counts: TrapCountRow[];
+  money: MoneyOpenRow[];
+}
+
+/** The grower's overview for the season window: blocks with colonies planned and on site, colony sums, open alerts, upcoming sprays, trap counts, money owed. */
+export async function selectGrowerOverview(sequelize: Sequelize, p: SeasonWindow & { farmId: string; season: number }): Promise<GrowerOverviewParts> {
+  const [row] = await queryPrepared<GrowerOverviewParts>(sequelize, growerOverviewStatement, { ...p, orgId: p.farmId, squareMetresPerAcre: SQUARE_METRES_PER_ACRE });
+  return row!;
 }
 
 export function selectTimelineSprays(sequelize: Sequelize, p: { ids: string[]; from: string; to: string }) {

@@ -9,11 +9,11 @@ import { isAllowed } from '../../../../shared/policies/policy-table.js';
 import { dashboardPolicy } from './dashboard.policy.js';
 import { seasonClock, type SeasonClock } from './season-clock.js';
 import { coloniesNeeded } from '../../../../shared/domain/stocking.js';
-import { createSeasonExtras } from './season-extras.js';
+import { createSeasonExtras, openAlertsOf, pestTrapsOf, upcomingSpraysOf } from './season-extras.js';
 import { cropSet } from '../../../../shared/labels/crops.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
 import {
-  selectGrowerBlocks, selectGrowerColonySums, selectCommittedSpan, selectCommittedWeeks, selectMovesDue, selectTimelineBlocks, selectTimelineBloom,
+  selectGrowerOverview, selectCommittedSpan, selectCommittedWeeks, selectMovesDue, selectTimelineBlocks, selectTimelineBloom,
   selectTimelinePlacements, selectMapBlocks, selectMapDropSites, selectMapYards,
 } from './dashboard.queries.js';
 import type {
@@ -61,15 +61,9 @@ export function createDashboardService(ctx: AppContext) {
       const org = sessionOrganizationOf(user);
       const clock = seasonClock(ctx.now(), org.timeZone, season);
       const w = { ...window(clock), farmId: org.id, season: clock.season };
-      const [blockRows, sums, openAlerts, upcomingSprays, pestTraps, moneyOwed] = await Promise.all([
-        selectGrowerBlocks(db, w),
-        selectGrowerColonySums(db, w),
-        extras.openAlerts(org.id, 'farm'),
-        extras.upcomingSprays(org.id, clock),
-        extras.pestTraps(org.id),
-        extras.money(org.id, 'farm'),
-      ]);
-      const blocks: GrowerBlockSummary[] = blockRows.map((r) => {
+      const parts = await selectGrowerOverview(db, w);
+      const { sums } = parts;
+      const blocks: GrowerBlockSummary[] = parts.blocks.map((r) => {
         const bloomWindow = r.bloom_start ? { bloomStart: r.bloom_start, fullBloom: r.full_bloom, petalFall: r.petal_fall! } : null;
         return {
           id: r.id, name: r.name, crop: r.crop, acres: r.acres, coloniesPerAcre: r.colonies_per_acre,
@@ -89,10 +83,10 @@ export function createDashboardService(ctx: AppContext) {
           coloniesCommitted: sums.committed,
           coloniesOnSite: blocks.reduce((s, b) => s + b.coloniesOnSite, 0),
         },
-        openAlerts,
-        upcomingSprays,
-        pestTraps,
-        moneyOwed,
+        openAlerts: openAlertsOf(parts.open_alerts, 'farm'),
+        upcomingSprays: upcomingSpraysOf(parts.upcoming_sprays),
+        pestTraps: pestTrapsOf(parts.trap_counts),
+        moneyOwed: parts.money,
       };
     },
 

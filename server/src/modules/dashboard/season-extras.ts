@@ -5,7 +5,8 @@ import type { AppContext } from '../../context.js';
 import type { DashboardAlert, DashboardSpray, MoneyLine, PestTrapCheck, SeasonMapFeature, TimelineItem } from '../../../../shared/schemas/dashboard.js';
 import type { SeasonClock } from './season-clock.js';
 import {
-  selectOpenAlerts, selectUpcomingSprays, selectLatestTrapCounts, selectMoneyOpen, selectTimelineSprays, selectTimelineAlerts, selectSprayBuffers,
+  selectOpenAlerts, selectMoneyOpen, selectTimelineSprays, selectTimelineAlerts, selectSprayBuffers,
+  type OpenAlertRow, type TrapCountRow, type UpcomingSprayRow,
 } from './dashboard.queries.js';
 import { conflictGradeSet } from '../../../../shared/labels/sprays.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
@@ -15,31 +16,34 @@ type Side = 'farm' | 'apiary';
 /** How far ahead the map draws spray buffers. */
 const BUFFER_LOOKAHEAD_DAYS = 14;
 
+const isoOf = (d: Date | string | null) => (d ? new Date(d).toISOString() : null);
+
+/** Open alerts as the overview lists them: what was sprayed where (and, for a beekeeper, at which farm). */
+export function openAlertsOf(rows: OpenAlertRow[], side: Side): DashboardAlert[] {
+  return rows.map((r) => ({
+    id: r.id, severity: r.grade, state: r.state,
+    title: side === 'farm' ? `${r.product} on ${r.blocks ?? 'a block'}` : `${r.product} at ${r.farm_name} (${r.blocks ?? 'a block'})`,
+    raisedAt: isoOf(r.raised_at)!,
+  }));
+}
+
+export function upcomingSpraysOf(rows: UpcomingSprayRow[]): DashboardSpray[] {
+  return rows.map((r) => ({
+    id: r.id, product: r.product, blockNames: r.blocks, plannedStart: isoOf(r.start)!, plannedEnd: isoOf(r.end)!,
+    residualHours: r.rt25_hours, residualEnd: isoOf(r.residual_end)!, state: r.state,
+  }));
+}
+
+export function pestTrapsOf(rows: TrapCountRow[]): PestTrapCheck[] {
+  return rows.map((r) => ({ blockName: r.block_name, pest: r.pest, checkedOn: r.checked_on, moths: r.moths }));
+}
+
 export function createSeasonExtras(ctx: AppContext) {
   const db = ctx.sequelize;
-  const iso = (d: Date | string | null) => (d ? new Date(d).toISOString() : null);
 
   return {
     async openAlerts(orgId: string, side: Side): Promise<DashboardAlert[] | null> {
-      const rows = await selectOpenAlerts(db, side, orgId);
-      return rows.map((r) => ({
-        id: r.id, severity: r.grade, state: r.state,
-        title: side === 'farm' ? `${r.product} on ${r.blocks ?? 'a block'}` : `${r.product} at ${r.farm_name} (${r.blocks ?? 'a block'})`,
-        raisedAt: iso(r.raised_at)!,
-      }));
-    },
-
-    async upcomingSprays(farmId: string, clock: SeasonClock): Promise<DashboardSpray[] | null> {
-      const rows = await selectUpcomingSprays(db, { farmId, now: clock.now.toISOString() });
-      return rows.map((r) => ({
-        id: r.id, product: r.product, blockNames: r.blocks, plannedStart: iso(r.start)!, plannedEnd: iso(r.end)!,
-        residualHours: r.rt25_hours, residualEnd: iso(r.residual_end)!, state: r.state,
-      }));
-    },
-
-    async pestTraps(farmId: string): Promise<PestTrapCheck[] | null> {
-      const rows = await selectLatestTrapCounts(db, farmId);
-      return rows.map((r) => ({ blockName: r.block_name, pest: r.pest, checkedOn: r.checked_on, moths: r.moths }));
+      return openAlertsOf(await selectOpenAlerts(db, side, orgId), side);
     },
 
     /** Issued invoices not yet settled: total less succeeded payments and credit notes, plus succeeded refunds. */
@@ -54,7 +58,7 @@ export function createSeasonExtras(ctx: AppContext) {
         blockId: r.block_id,
         item: {
           kind: 'spray', id: r.id, label: r.state === 'applied' ? `${r.product} (applied)` : r.product, state: r.state,
-          start: iso(r.applied_at ?? r.start)!, end: iso(r.end), residualEnd: iso(r.residual_end), openId: r.id,
+          start: isoOf(r.applied_at ?? r.start)!, end: isoOf(r.end), residualEnd: isoOf(r.residual_end), openId: r.id,
         },
       }));
     },
@@ -63,7 +67,7 @@ export function createSeasonExtras(ctx: AppContext) {
       const rows = await selectTimelineAlerts(db, side, { ids: blockIds, orgId, from: clock.seasonFrom.toISOString(), to: clock.seasonTo.toISOString() });
       return rows.map((r) => ({
         blockId: r.block_id,
-        item: { kind: 'alert', id: r.id, label: `Spray alert (${labelOf(conflictGradeSet, r.grade)}): ${r.product}`, start: iso(r.raised_at)!, end: null, state: r.state, openId: r.id },
+        item: { kind: 'alert', id: r.id, label: `Spray alert (${labelOf(conflictGradeSet, r.grade)}): ${r.product}`, start: isoOf(r.raised_at)!, end: null, state: r.state, openId: r.id },
       }));
     },
 
