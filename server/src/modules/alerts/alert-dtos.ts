@@ -63,31 +63,18 @@ export interface AlertParts {
   history: AlertEventDto[];
 }
 
-/** One alert as its DTO, from its row and the parts around it. */
+/** One alert as its DTO, from its model and the parts around it (a just-raised alert, in the transaction that made it). */
 export function alertDtoOf(a: Alert, parts: AlertParts): AlertDto {
   const { spray } = parts;
-  return {
-    id: a.id,
-    revision: Number(a.revision),
-    state: a.state,
-    grade: a.grade,
-    grades: a.grades,
-    reasons: a.reasons,
-    cautions: [...sprayCautions],
-    farm: { id: parts.farm.id, name: parts.farm.name, timeZone: parts.farm.timeZone },
-    apiary: parts.apiary ? { id: parts.apiary.id, name: parts.apiary.name } : null,
-    spray: {
-      id: spray.id, state: spray.state, productName: spray.productName, epaRegNo: spray.epaRegNo,
-      startsAt: iso(spray.plannedWindow[0].value), endsAt: iso(spray.plannedWindow[1].value),
-      blockNames: [...parts.blockNames].sort(byName),
-    },
-    findings: a.findings,
-    seenByMe: parts.seenByMe,
-    raisedAt: iso(a.raisedAt),
-    resolvedAt: a.resolvedAt ? iso(a.resolvedAt) : null,
-    updatedAt: iso(a.updatedAt),
-    history: parts.history,
-  };
+  return alertDtoOfRow({
+    id: a.id, revision: a.revision, state: a.state, grade: a.grade, grades: a.grades, reasons: a.reasons, findings: a.findings,
+    raised_at: a.raisedAt, resolved_at: a.resolvedAt, updated_at: a.updatedAt,
+    farm_id: parts.farm.id, farm_name: parts.farm.name, farm_time_zone: parts.farm.timeZone,
+    apiary_id: parts.apiary?.id ?? null, apiary_name: parts.apiary?.name ?? null,
+    spray_id: spray.id, spray_state: spray.state, product_name: spray.productName, epa_reg_no: spray.epaRegNo,
+    starts_at: spray.plannedWindow[0].value, ends_at: spray.plannedWindow[1].value,
+    block_names: parts.blockNames, seen_by_me: parts.seenByMe, history: parts.history,
+  });
 }
 
 /** A history step as its DTO. */
