@@ -1,10 +1,10 @@
 // The season overviews' SQL: sums over blocks, placements, commitments and invoices,
 // range overlaps with the season window, and PostGIS output for the map. Values travel as
 // replacements or bind parameters; the only text chosen in code is which side's column or
-// visibility rule a query reads (farm or apiary), never a value. The grower's overview is
-// asked for on every visit, so its statements are prepared (planned once per connection).
+// visibility rule a query reads (farm or apiary), never a value. The overviews are asked for
+// on every visit, so their statements are prepared (planned once per connection).
 import type { Sequelize } from 'sequelize';
-import { prepareStatement, queryOne, queryPrepared, queryRows, type PreparedStatement } from '../../db/query-rows.js';
+import { prepareStatement, queryOne, queryPrepared, queryRows } from '../../db/query-rows.js';
 
 type Side = 'farm' | 'apiary';
 /** The season window and the moment the overview is drawn for (ISO strings). */
@@ -180,12 +180,6 @@ export function selectMapYards(sequelize: Sequelize, apiaryId: string) {
   );
 }
 
-/** One prepared statement per side, for the statements that read the farm's or the apiary's column. */
-const bySide = (name: string, sql: (column: string) => string): Record<Side, PreparedStatement> => ({
-  farm: prepareStatement(`${name}-farm`, sql(sideColumn('farm'))),
-  apiary: prepareStatement(`${name}-apiary`, sql(sideColumn('apiary'))),
-});
-
 const openAlertsSql = (column: string) => `
   SELECT al.id, al.grade, al.state, s.product_name AS product, o.name AS farm_name, al.raised_at,
     (SELECT string_agg(b.name, ', ' ORDER BY b.name) FROM spray_plan_blocks sb JOIN blocks b ON b.id = sb.block_id WHERE sb.spray_plan_id = s.id) AS blocks
@@ -227,15 +221,17 @@ export type GrowerBlockRow = {
   bloom_start: string | null; full_bloom: string | null; petal_fall: string | null; planned: number; on_site: number;
 };
 
-const openAlertsStatements = bySide('overview-open-alerts', openAlertsSql);
-const moneyOpenStatements = bySide('overview-money-open', moneyOpenSql);
+// The beekeeper's overview reads the same parts by the apiary's column (the grower's come
+// with its one statement below).
+const apiaryOpenAlertsStatement = prepareStatement('overview-open-alerts-apiary', openAlertsSql(sideColumn('apiary')));
+const apiaryMoneyDueStatement = prepareStatement('overview-money-due-apiary', moneyOpenSql(sideColumn('apiary')));
 
-export function selectOpenAlerts(sequelize: Sequelize, side: Side, orgId: string) {
-  return queryPrepared<OpenAlertRow>(sequelize, openAlertsStatements[side], { orgId });
+export function selectApiaryOpenAlerts(sequelize: Sequelize, apiaryId: string) {
+  return queryPrepared<OpenAlertRow>(sequelize, apiaryOpenAlertsStatement, { orgId: apiaryId });
 }
 
-export function selectMoneyOpen(sequelize: Sequelize, side: Side, orgId: string) {
-  return queryPrepared<MoneyOpenRow>(sequelize, moneyOpenStatements[side], { orgId });
+export function selectApiaryMoneyDue(sequelize: Sequelize, apiaryId: string) {
+  return queryPrepared<MoneyOpenRow>(sequelize, apiaryMoneyDueStatement, { orgId: apiaryId });
 }
 
 // The grower's overview is asked for on every visit: its six parts in one round trip, each

@@ -113,7 +113,7 @@ export function createDashboardService(ctx: AppContext) {
         placementId: r.placement_id, agreementId: r.agreement_id, farmName: r.farm_name, dropSiteName: r.drop_site_name, blockName: r.block_name,
         colonies: r.colonies, dueAt: new Date(r.due_at).toISOString(), overdue: new Date(r.due_at) < clock.now,
       });
-      const [openAlerts, moneyDue] = await Promise.all([extras.openAlerts(org.id, 'apiary'), extras.money(org.id, 'apiary')]);
+      const [openAlerts, moneyDue] = await Promise.all([extras.apiaryOpenAlerts(org.id), extras.moneyDue(org.id)]);
       return {
         season: clock.season,
         today: clock.today,

@@ -5,7 +5,7 @@ import type { AppContext } from '../../context.js';
 import type { DashboardAlert, DashboardSpray, MoneyLine, PestTrapCheck, SeasonMapFeature, TimelineItem } from '../../../../shared/schemas/dashboard.js';
 import type { SeasonClock } from './season-clock.js';
 import {
-  selectOpenAlerts, selectMoneyOpen, selectTimelineSprays, selectTimelineAlerts, selectSprayBuffers,
+  selectApiaryOpenAlerts, selectApiaryMoneyDue, selectTimelineSprays, selectTimelineAlerts, selectSprayBuffers,
   type OpenAlertRow, type TrapCountRow, type UpcomingSprayRow,
 } from './dashboard.queries.js';
 import { conflictGradeSet } from '../../../../shared/labels/sprays.js';
@@ -42,14 +42,14 @@ export function createSeasonExtras(ctx: AppContext) {
   const db = ctx.sequelize;
 
   return {
-    async openAlerts(orgId: string, side: Side): Promise<DashboardAlert[] | null> {
-      return openAlertsOf(await selectOpenAlerts(db, side, orgId), side);
+    /** The open alerts that name the apiary business. */
+    async apiaryOpenAlerts(apiaryId: string): Promise<DashboardAlert[] | null> {
+      return openAlertsOf(await selectApiaryOpenAlerts(db, apiaryId), 'apiary');
     },
 
-    /** Issued invoices not yet settled: total less succeeded payments and credit notes, plus succeeded refunds. */
-    async money(orgId: string, side: Side): Promise<MoneyLine[] | null> {
-      const rows = await selectMoneyOpen(db, side, orgId);
-      return rows;
+    /** The apiary's issued invoices not yet settled: total less succeeded payments and credit notes, plus succeeded refunds. */
+    moneyDue(apiaryId: string): Promise<MoneyLine[] | null> {
+      return selectApiaryMoneyDue(db, apiaryId);
     },
 
     async timelineSprays(blockIds: string[], clock: SeasonClock): Promise<Array<{ blockId: string; item: TimelineItem }>> {
