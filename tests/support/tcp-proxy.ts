@@ -1,7 +1,9 @@
 // A TCP proxy a test puts between a server and PostgreSQL (to take the database away) or
 // between a browser and our server (to take the signal away): cut() drops every connection
 // and refuses new ones for a while, restore() ends that early; cutOn(pattern) cuts the
-// moment a client sends a matching statement (e.g. in the middle of a save's transaction).
+// moment a client sends a matching statement (e.g. in the middle of a save's transaction);
+// httpRequests() lists the HTTP requests that reached the server through it (what the
+// server was asked, whichever page or worker asked it).
 import { connect, createServer, type Socket } from 'node:net';
 
 export interface TcpProxy {
@@ -12,6 +14,8 @@ export interface TcpProxy {
   restore(): void;
   /** Cuts for `ms` as soon as a client sends bytes matching `pattern`; resolves when it did. */
   cutOn(pattern: RegExp, ms: number): Promise<void>;
+  /** The HTTP requests passed on so far, as `METHOD /path` (query left off), oldest first. */
+  httpRequests(): string[];
   /** Whether connections are being refused now. */
   readonly down: boolean;
   close(): Promise<void>;
@@ -22,6 +26,9 @@ export async function startTcpProxy(target: { host: string; port: number }): Pro
   let downUntil = 0;
   let trigger: { pattern: RegExp; ms: number; fired: () => void } | null = null;
   const isDown = () => Date.now() < downUntil;
+  const requests: string[] = [];
+  // An HTTP/1.1 request line at the start of a chunk or after the previous request's end.
+  const requestLine = /(?:^|\r\n)(GET|HEAD|POST|PUT|PATCH|DELETE|OPTIONS) (\/[^\s?]*)\S* HTTP\/1\.[01]\r\n/g;
 
   const cut = (ms: number) => {
     downUntil = Date.now() + ms;
@@ -48,6 +55,7 @@ export async function startTcpProxy(target: { host: string; port: number }): Pro
         fired();
         return;
       }
+      for (const [, method, path] of chunk.toString('latin1').matchAll(requestLine)) requests.push(`${method} ${path}`);
       upstream.write(chunk);
     });
     upstream.on('data', (chunk) => client.write(chunk));
@@ -63,6 +71,7 @@ export async function startTcpProxy(target: { host: string; port: number }): Pro
     cut,
     restore: () => { downUntil = 0; },
     cutOn: (pattern, ms) => new Promise<void>((fired) => (trigger = { pattern, ms, fired })),
+    httpRequests: () => [...requests],
     get down() { return isDown(); },
     async close() {
       for (const s of open) s.destroy();
