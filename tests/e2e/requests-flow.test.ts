@@ -2,13 +2,16 @@
 // part, a second commits the rest; grower and beekeeper confirm the agreement; the crew,
 // on a phone, marks colonies delivered; the grower sees it arrive without reloading.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser } from 'playwright-core';
+import type { Browser, Locator } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
 import { buildMarket } from '../support/builders/requests.js';
 
 /** Waits for the page (a loaded machine may take a few seconds). */
 const poll = <T>(check: () => T | Promise<T>) => expect.poll(check, { timeout: 15_000, interval: 100 });
+/** What a screen reader reads with a field besides its name: the texts its aria-describedby points at. */
+const descriptionOf = (field: Locator) => field.evaluate((el) =>
+  (el.getAttribute('aria-describedby') ?? '').split(/\s+/).map((id) => document.getElementById(id)?.textContent?.trim()).filter(Boolean).join(' '));
 
 describe('hive request to delivery in the browser', () => {
   let t: TestApp;
@@ -45,7 +48,14 @@ describe('hive request to delivery in the browser', () => {
     await poll(async () => Number(await colonies.inputValue())).toBeGreaterThanOrEqual(60);
     await colonies.fill('60');
     await colonies.blur();
+    // The number inputs and lists are read with their hint and message (FormField's aria-describedby on the focused element).
+    expect(await descriptionOf(colonies)).toMatch(/^\d+\.\d ac × 2 per acre = \d+$/);
+    expect(await g.locator('#arrive-rule').getAttribute('aria-describedby')).toBe('arrive-rule-error');
     await g.getByLabel('Title').fill('Galas at first bloom');
+    // Opened before a drop site is added: refused, the drop sites marked, the draft kept.
+    await g.getByRole('button', { name: 'Save and open for commitments' }).click();
+    await poll(() => g.locator('#sites-error').textContent()).toMatch(/add at least one drop site/i);
+    await poll(() => g.getByTestId('saved-draft-note').isVisible()).toBe(true);
     await g.getByRole('button', { name: 'Add a drop site' }).click();
     // The drop site starts at the block; a click on the map moves it there.
     const latitude = g.getByLabel('Latitude');
@@ -59,6 +69,9 @@ describe('hive request to delivery in the browser', () => {
     await g.waitForURL(/\/requests\/[0-9a-f-]{36}$/);
     await poll(() => g.getByText('Open for commitments', { exact: true }).isVisible()).toBe(true);
     const requestUrl = g.url();
+    // Saved again, the same draft was changed and opened: one request, with its drop site.
+    const saved = await t.context.models.HiveRequest.findAll({ where: { title: 'Galas at first bloom' }, include: ['dropSites'] });
+    expect(saved.map((r) => ({ url: `${t.baseUrl}/requests/${r.id}`, state: r.state, sites: r.dropSites!.length }))).toEqual([{ url: requestUrl, state: 'listed', sites: 1 }]);
 
     // The first beekeeper finds it with its distance and commits 40.
     const keeper = await signedIn(m.people.keeper.email);
@@ -116,8 +129,10 @@ describe('hive request to delivery in the browser', () => {
     await poll(() => g.locator('[data-state="delivered"]').count()).toBe(1);
     await poll(() => g.getByText('Field update').isVisible()).toBe(true);
 
+    // The one refusal asked for above (opened with no drop site) is the grower's only console error.
+    expect(grower.consoleErrors).toEqual(['Failed to load resource: the server responded with a status of 400 (Bad Request)']);
     for (const p of pages) {
-      expect(p.consoleErrors).toEqual([]);
+      if (p !== grower) expect(p.consoleErrors).toEqual([]);
       expect(p.externalRequests).toEqual([]);
     }
   }, 180_000);
