@@ -5,7 +5,7 @@
 // (not yet delivered); an agreement on the Fuji waiting for the beekeeper to confirm;
 // last month's cherries picked up and completed; and a draft.
 import { buildAgreement, buildCommitment, buildDropSite, buildPlacement, buildRequest, buildStrengthCheck, buildYard, type BuiltBlock } from '../../tests/support/builders/season.js';
-import { buildRequestEvent, confirmAgreementSide, fillAgreementClauses } from '../../tests/support/builders/requests.js';
+import { agreementMadeAt, agreementSignedAt, buildRequestEvent, confirmAgreementSide, fillAgreementClauses } from '../../tests/support/builders/requests.js';
 import type { SeedBlocks } from './blocks.seed.js';
 import type { SeedWorld } from '../seed-world.js';
 
@@ -44,6 +44,9 @@ export async function seedRequests(world: SeedWorld) {
   const pearAgreementA = await buildAgreement({ commitment: pearA, state: 'in-force', farmConfirmedBy: grower, apiaryConfirmedBy: keeper });
   const pearAgreementB = await buildAgreement({ commitment: pearB, state: 'in-force', farmConfirmedBy: grower, apiaryConfirmedBy: keeper2 });
   for (const a of [pearAgreementA, pearAgreementB]) await fillAgreementClauses(a);
+  // Agreed the day the request filled, a week before the colonies came.
+  await agreementSignedAt(pearAgreementA, at(-11, 3));
+  await agreementSignedAt(pearAgreementB, at(-11, 4));
   const pearPlaced = await buildPlacement({ agreement: pearAgreementA, dropSite: pearNorth, coloniesPlanned: 24, deliveredAt: at(-3, 4), coloniesDelivered: 24 });
   await buildStrengthCheck({ placement: pearPlaced, coloniesInGroup: 24, framesOfBees: [8, 7, 9, 5.5], checkedAt: at(-2, 18), checkedBy: crew });
   const pearWaiting = await buildPlacement({ agreement: pearAgreementB, dropSite: pearSouth, coloniesPlanned: 16 });
@@ -67,6 +70,7 @@ export async function seedRequests(world: SeedWorld) {
   const fujiCommitment = await buildCommitment({ request: fuji, apiary, colonies: 45, createdBy: keeper });
   const fujiAgreement = await buildAgreement({ commitment: fujiCommitment, state: 'awaiting-signatures' });
   await fillAgreementClauses(fujiAgreement);
+  await agreementMadeAt(fujiAgreement, at(-3, 5));
   await confirmAgreementSide(fujiAgreement, 'farm', grower2, at(-1, 2));
 
   // Last month's cherries: delivered, checked, picked up, completed.
@@ -75,6 +79,7 @@ export async function seedRequests(world: SeedWorld) {
   const cherrySite = await buildDropSite({ request: cherries, block: benchCherry, name: 'Slope road pull-out', ...site(benchCherry, 0.0006), coloniesPlanned: 30 });
   const cherryAgreement = await buildAgreement({ commitment: await buildCommitment({ request: cherries, apiary, colonies: 30, createdBy: keeper }), state: 'completed', farmConfirmedBy: grower, apiaryConfirmedBy: keeper });
   await fillAgreementClauses(cherryAgreement);
+  await agreementSignedAt(cherryAgreement, at(-34, 2));
   const cherryPlaced = await buildPlacement({ agreement: cherryAgreement, dropSite: cherrySite, coloniesPlanned: 30, deliveredAt: at(-24, 5), pickedUpAt: at(-6, 4), coloniesDelivered: 30, coloniesPickedUp: 30 });
   await buildStrengthCheck({ placement: cherryPlaced, coloniesInGroup: 30, framesOfBees: [7, 8, 6, 9], checkedAt: at(-22, 17), checkedBy: crew });
 

@@ -9,6 +9,7 @@ import { createJobQueue } from '../../server/src/jobs/queue.js';
 import type { AppContext, RealtimeServer } from '../../server/src/context.js';
 import { buildAgreement, buildCommitment, buildDropSite, buildPlacement, buildRequest, type BuiltBlock } from '../../tests/support/builders/season.js';
 import { applySpray, cancelSpray, planSpray, sprayInput } from '../../tests/support/builders/sprays.js';
+import { agreementSignedAt } from '../../tests/support/builders/requests.js';
 import type { SeedBlocks } from './blocks.seed.js';
 import type { SeedWorld } from '../seed-world.js';
 import { builderModels, builderSequelize } from '../../tests/support/builders/builder-database.js';
@@ -36,6 +37,7 @@ async function ensureColoniesNear(world: SeedWorld, block: BuiltBlock) {
   const request = await buildRequest({ farm: world.organizations.farm, blocks: [{ block, colonies: 16 }], state: 'filled', title: 'Pear bloom colonies', onSite, createdBy: world.users.grower });
   const dropSite = await buildDropSite({ request, block, name: 'Pear lane gate', lon: block.lon + 0.0008, lat: block.lat, coloniesPlanned: 16 });
   const agreement = await buildAgreement({ commitment: await buildCommitment({ request, apiary: world.organizations.apiary, colonies: 16 }) });
+  await agreementSignedAt(agreement, new Date(onSite.from.getTime() - 8 * DAY));
   await buildPlacement({ agreement, dropSite, coloniesPlanned: 16, deliveredAt: onSite.from });
 }
 

@@ -23,6 +23,23 @@ describe('demo season: requests, agreements and placements', () => {
     for (const state of ['scheduled', 'delivered', 'picked-up']) expect(await count(`SELECT count(*) AS n FROM placements WHERE state = '${state}'`), state).toBeGreaterThanOrEqual(1);
   });
 
+  it('dates every agreement before its colonies came, its confirmations after it was made, and its invoices after both', async () => {
+    const rows = await t.context.sequelize.query<{ problem: string }>(
+      `SELECT a.id || ': ' || p.problem AS problem FROM agreements a
+       LEFT JOIN LATERAL (SELECT min(delivered_at) AS first_drop FROM placements WHERE agreement_id = a.id) d ON true
+       CROSS JOIN LATERAL (VALUES
+         (CASE WHEN a.created_at > coalesce(d.first_drop, 'infinity') THEN 'made after its first drop-off' END),
+         (CASE WHEN greatest(a.farm_confirmed_at, a.apiary_confirmed_at) > coalesce(d.first_drop, 'infinity') THEN 'confirmed after its first drop-off' END),
+         (CASE WHEN least(a.farm_confirmed_at, a.apiary_confirmed_at) < a.created_at THEN 'confirmed before it was made' END),
+         (CASE WHEN EXISTS (SELECT 1 FROM invoices i WHERE i.agreement_id = a.id AND i.issued_at < greatest(a.farm_confirmed_at, a.apiary_confirmed_at)) THEN 'invoiced before it was confirmed' END)
+       ) p(problem)
+       WHERE p.problem IS NOT NULL`,
+      { type: QueryTypes.SELECT },
+    );
+    expect(rows.map((r) => r.problem)).toEqual([]);
+    expect(await count('SELECT count(*) AS n FROM agreements')).toBeGreaterThanOrEqual(5);
+  });
+
   it('serves the demo to the beekeeper, the crew and the grower through the API', async () => {
     const keeper = await signedInClient(t.app, 'keeper@apiary.test');
     const open = (await keeper.get('/api/requests')).body.requests;

@@ -78,6 +78,21 @@ export async function confirmAgreementSide(agreement: { id: string }, side: 'far
   });
 }
 
+/**
+ * Dates an agreement made by buildAgreement (made and confirmed now) as made at `at`, and
+ * the confirmations it has as given two and five hours later: the farm's, then the apiary's.
+ */
+export async function agreementSignedAt(agreement: { id: string }, at: Date) {
+  const hours = (n: number) => new Date(at.getTime() + n * 3_600_000).toISOString();
+  await builderSequelize().query(
+    `UPDATE agreements SET created_at = :at,
+       farm_confirmed_at = CASE WHEN farm_confirmed_at IS NULL THEN NULL ELSE :farmAt::timestamptz END,
+       apiary_confirmed_at = CASE WHEN apiary_confirmed_at IS NULL THEN NULL ELSE :apiaryAt::timestamptz END
+     WHERE id = :id`,
+    { replacements: { id: agreement.id, at: at.toISOString(), farmAt: hours(2), apiaryAt: hours(5) } },
+  );
+}
+
 /** Says an agreement was made at `at` (an earlier time), so field steps recorded since then are not before it. */
 export async function agreementMadeAt(agreement: { id: string }, at: Date) {
   await builderSequelize().query('UPDATE agreements SET created_at = :at WHERE id = :id', { replacements: { id: agreement.id, at: at.toISOString() } });
