@@ -2,7 +2,7 @@
 // bounded when it is written: not in the future beyond the clock tolerance, and not before
 // the agreement was made. Either is a 400 that names the field and changes nothing; a good
 // past time is kept as the step's time, beside the time the server received it. A strength
-// check is not before its drop-off, as a pickup is after it.
+// check (and a strength-check or pickup photo) is not before its drop-off, as a pickup is after it.
 // The five-minute tolerance and "not before the agreement" are common practice, no source.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { randomUUID } from 'node:crypto';
@@ -33,8 +33,8 @@ describe('recorded times on the field steps', () => {
   /** A scheduled placement whose agreement was made two days ago. */
   const placementAgreedTwoDaysAgo = (colonies = 10) => scheduledPlacementThroughApi({ grower, keeper, crew }, m, colonies, new Date(Date.now() - 2 * DAY));
 
-  const photo = (id: string, recordedAt: string) => crew.agent.post(`/api/placements/${id}/photos`).set('X-CSRF-Token', crew.csrfToken).set('Idempotency-Key', randomUUID())
-    .field('step', 'delivery').field('recordedAt', recordedAt).attach('photo', png, { filename: 'drop.png', contentType: 'image/png' });
+  const photo = (id: string, recordedAt: string, step = 'delivery') => crew.agent.post(`/api/placements/${id}/photos`).set('X-CSRF-Token', crew.csrfToken).set('Idempotency-Key', randomUUID())
+    .field('step', step).field('recordedAt', recordedAt).attach('photo', png, { filename: 'drop.png', contentType: 'image/png' });
 
   const count = async (sql: string, id: string) =>
     Number((await t.context.sequelize.query<{ n: string }>(sql, { replacements: { id }, type: QueryTypes.SELECT }))[0].n);
@@ -88,6 +88,22 @@ describe('recorded times on the field steps', () => {
     expect(await count('SELECT count(*) AS n FROM strength_checks WHERE placement_id = :id', id)).toBe(0);
     // At the drop-off itself is fine: the crew checks the colonies as it sets them down.
     await crew.post(`/api/placements/${id}/strength-checks`, { framesOfBees: [8], checkedAt: droppedOff.toISOString() }).expect(201);
+  });
+
+  it('refuses a strength-check or pickup photo recorded before the drop-off (400 naming recordedAt); a drop-off photo may be taken as colonies are set down', async () => {
+    const id = await placementAgreedTwoDaysAgo();
+    const droppedOff = new Date(Date.now() - DAY);
+    const hourBefore = new Date(droppedOff.getTime() - HOUR).toISOString();
+    await crew.post(`/api/placements/${id}/delivery`, { coloniesDelivered: 10, deliveredAt: droppedOff.toISOString() }).expect(201);
+    for (const step of ['strength-check', 'pickup']) {
+      const res = await photo(id, hourBefore, step);
+      expect(res.status, step).toBe(400);
+      expect(res.body.error.fields, step).toEqual({ recordedAt: 'cannot be before the drop-off' });
+    }
+    expect(await count('SELECT count(*) AS n FROM placement_photos WHERE placement_id = :id', id)).toBe(0);
+    expect((await photo(id, hourBefore, 'delivery')).status).toBe(201);
+    expect((await photo(id, droppedOff.toISOString(), 'strength-check')).status).toBe(201);
+    expect(await count('SELECT count(*) AS n FROM placement_photos WHERE placement_id = :id', id)).toBe(2);
   });
 
   it('refuses a time more than five minutes ahead (400 naming the field) and takes a small lead as the time received', async () => {

@@ -242,6 +242,8 @@ export function createPlacementsService(ctx: AppContext) {
         const p = await lockForStep(user, id, t);
         if (p.state === 'scheduled' && step !== 'delivery') throw wrongState('Colonies are not delivered yet.');
         if (at) await refuseBeforeAgreement(ctx, t, p.agreement!, at, 'recordedAt', 'photo');
+        // A strength-check or pickup photo shows colonies on site; a drop-off photo may be taken as they are set down, before the step is marked.
+        if (at && step !== 'delivery' && p.deliveredAt && at < p.deliveredAt) throw badRequest(pleaseCheck(['recordedAt']), { recordedAt: 'cannot be before the drop-off' });
         await ctx.models.PlacementPhoto.create({
           placementId: id, step, contentType: type, byteSize: file.size, data: file.buffer, uploadedBy: user.id, createdAt: ctx.now(),
           recordedAt: at,
