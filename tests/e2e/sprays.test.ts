@@ -11,6 +11,7 @@ import { buildSignedSeason } from '../support/builders/season.js';
 import { buildDailyTemperatures, buildStation } from '../support/builders/weather.js';
 import { signedInClient } from '../support/api-client.js';
 import type { PestTimingDto } from '../../shared/schemas/pests.js';
+import { queueNames } from '../../server/src/jobs/queue-names.js';
 
 const DAY = 86_400_000;
 // Pages load slowly on a busy machine: give each wait a generous limit.
@@ -47,6 +48,9 @@ describe('spray plans and live alerts in the browser', () => {
 
   it('raises the alert live for the beekeeper, who answers; the grower sees the answer', async () => {
     const keeper = await openWatchedPage(browser);
+    // The alert publications the beekeeper's page receives over its socket.
+    const raisedFrames: string[] = [];
+    keeper.page.on('websocket', (ws) => ws.on('framereceived', ({ payload }) => { if (String(payload).includes('"alert:raised"')) raisedFrames.push(String(payload)); }));
     await signInThroughPage(keeper.page, t.baseUrl, 'keeper@sprays-e2e.test');
     await keeper.page.goto(`${t.baseUrl}/alerts`);
     await expect.poll(() => keeper.page.getByText('No open alerts').isVisible(), slow).toBe(true);
@@ -86,6 +90,25 @@ describe('spray plans and live alerts in the browser', () => {
     await expect.poll(() => card.textContent(), slow).toMatch(/Codling Shield 50WP on Cedar Row/);
     expect(await card.textContent()).toMatch(/licensed applicator/);
     await saveScreenshot(keeper.page, 'sprays-alert-arrived');
+
+    // The queue delivers a publication at least once: the same revision sent again reaches
+    // the page, which drops it (one card, one unseen, no second toast).
+    expect(raisedFrames).toHaveLength(1);
+    const alertId = (await t.context.models.Alert.findOne({ where: { farmId }, rejectOnEmpty: true })).id;
+    expect(raisedFrames[0]).toContain(alertId);
+    await keeper.page.evaluate(() => {
+      const added = { toasts: 0 };
+      (window as unknown as { addedToasts: typeof added }).addedToasts = added;
+      new MutationObserver((changes) => {
+        for (const change of changes) for (const node of change.addedNodes) if (node instanceof HTMLElement && node.matches('.p-toast-message')) added.toasts++;
+      }).observe(document.body, { childList: true, subtree: true });
+    });
+    await t.context.jobs.send(queueNames.alertPublish, { alertId, event: 'alert:raised' });
+    await expect.poll(() => raisedFrames.length, slow).toBe(2);
+    await keeper.page.waitForTimeout(500);
+    expect(await keeper.page.evaluate(() => (window as unknown as { addedToasts: { toasts: number } }).addedToasts.toasts)).toBe(0);
+    expect(await keeper.page.locator('[data-alert-card]').count()).toBe(1);
+    expect(await keeper.page.locator('[data-alert-count]').textContent()).toBe('1');
     await card.locator('.p-select').click();
     await keeper.page.getByRole('option', { name: 'We will close the colonies in for the spray' }).click();
     await card.getByLabel('Note (optional)').fill('Closing at dusk');
