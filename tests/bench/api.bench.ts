@@ -2,7 +2,9 @@
 // server run with plain node, WEB_CONCURRENCY processes) on loopback, signed in. The demo
 // season is loaded into a throwaway database; autocannon (a load generator from npm) sends
 // the read routes a season overview calls, one at a time and then as a mix, and one write
-// (a commitment offer on a listed request, a different request each time).
+// (a commitment offer on a listed request, a different request each time). Every request
+// asks for a compressed answer as Chromium does (Accept-Encoding); the server compresses the
+// built client's files, not the API's JSON (README, "Running for a whole valley").
 // Reports req/s, p50 / p95 / p99 per route and the error count, with the targets.
 // Run: npm run bench:api (the private PostgreSQL cluster must be running).
 //   BENCH_PROCESSES (default 2), BENCH_SECONDS per read run (default 8), BENCH_CONNECTIONS (default 16).
@@ -21,6 +23,8 @@ const SECONDS = Number(process.env.BENCH_SECONDS ?? 8);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 16);
 const OFFERS = 1_000;
 const DAY = 86_400_000;
+/** What Chromium sends with every request. */
+const acceptEncoding = 'gzip, deflate, br, zstd';
 const readRoutes = [
   { name: 'season overview', path: '/api/dashboard/grower' },
   { name: 'blocks', path: '/api/blocks' },
@@ -86,14 +90,14 @@ async function main() {
     console.log(`production build, ${PROCESSES} server process(es), ${CONNECTIONS} connections, ${SECONDS} s per read run; demo season + ${OFFERS} listed requests`);
 
     // Warm the pools and caches before measuring.
-    await load({ url: baseUrl, headers: { cookie: grower.cookie }, duration: 2, requests: readRoutes.map((r) => ({ method: 'GET', path: r.path })) });
+    await load({ url: baseUrl, headers: { cookie: grower.cookie, 'accept-encoding': acceptEncoding }, duration: 2, requests: readRoutes.map((r) => ({ method: 'GET', path: r.path })) });
 
     // The floor under every read route on this machine: a request with no session, and a
     // signed-in request that only reads its session and user (two queries, no route work).
     console.log('floor (for reference, no target):');
     const floor = {
       health: await load({ url: `${baseUrl}/api/health`, duration: SECONDS }),
-      session: await load({ url: `${baseUrl}/api/auth/me`, headers: { cookie: grower.cookie }, duration: SECONDS }),
+      session: await load({ url: `${baseUrl}/api/auth/me`, headers: { cookie: grower.cookie, 'accept-encoding': acceptEncoding }, duration: SECONDS }),
     };
     console.log(row('no session /health', floor.health));
     console.log(row('session only /auth/me', floor.session));
@@ -101,11 +105,11 @@ async function main() {
     console.log('read routes, one at a time:');
     const perRoute: Array<[string, RunFigures]> = [];
     for (const route of readRoutes) {
-      const figures = await load({ url: `${baseUrl}${route.path}`, headers: { cookie: grower.cookie }, duration: SECONDS });
+      const figures = await load({ url: `${baseUrl}${route.path}`, headers: { cookie: grower.cookie, 'accept-encoding': acceptEncoding }, duration: SECONDS });
       perRoute.push([route.name, figures]);
       console.log(row(`${route.name} ${route.path.replace('/api', '')}`, figures));
     }
-    const mix = await load({ url: baseUrl, headers: { cookie: grower.cookie }, duration: SECONDS * 2, requests: readRoutes.map((r) => ({ method: 'GET', path: r.path })) });
+    const mix = await load({ url: baseUrl, headers: { cookie: grower.cookie, 'accept-encoding': acceptEncoding }, duration: SECONDS * 2, requests: readRoutes.map((r) => ({ method: 'GET', path: r.path })) });
     console.log('read mix (the five routes in turn on every connection):');
     console.log(row('read mix', mix));
 
@@ -113,7 +117,7 @@ async function main() {
     const offers = await load({
       url: baseUrl,
       amount: OFFERS,
-      headers: { cookie: keeper.cookie, 'x-csrf-token': keeper.csrfToken, 'content-type': 'application/json' },
+      headers: { cookie: keeper.cookie, 'accept-encoding': acceptEncoding, 'x-csrf-token': keeper.csrfToken, 'content-type': 'application/json' },
       requests: [{
         method: 'POST',
         setupRequest: (req: autocannon.Request) => ({ ...req, path: `/api/requests/${offerTargets[next++ % offerTargets.length]}/commitments`, body: JSON.stringify({ colonies: 10 }) }),
