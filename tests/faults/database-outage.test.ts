@@ -3,8 +3,13 @@
 // spray, and refuses new ones). The client gets a clear 503 with Retry-After, nothing of
 // the save stays (PostgreSQL rolls back the transaction whose connection went), the health
 // route reports the outage and then the recovery, and the same save then succeeds.
+// When the connection goes just after the save's COMMIT reached the database (its answer
+// lost), the plan is saved and the server cannot know: the 503 says it may be saved, and
+// the same plan sent again under its Idempotency-Key (as the spray form does) is kept once.
+// A connection lost as the job queue marks a finished job done does not end the process.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import request from 'supertest';
+import { randomUUID } from 'node:crypto';
 import { startTestApp, eventually, type TestApp } from '../support/test-app.js';
 import { startServerProcess, type ServerProcess } from '../support/server-process.js';
 import { startTcpProxy, type TcpProxy } from '../support/tcp-proxy.js';
@@ -69,4 +74,40 @@ describe('a database outage during a spray save', () => {
     expect(saved.status).toBe(201);
     expect(await countOf(product)).toEqual({ sprays: 1, alerts: 1 });
   }, 120_000);
+
+  it('says the plan may be saved when the database goes as it commits, and keeps it once when sent again under its key', async () => {
+    await eventually(async () => (await health()).status === 200, OUTAGE_MS + 15_000, 500);
+    const product = 'Hollowmere 4SC';
+    const key = randomUUID();
+    const send = () => withSession(server.baseUrl, grower).post('/api/sprays').set('Idempotency-Key', key).send(world.conflictingSpray(1, product));
+    // The COMMIT of the save's own transaction: the one that wrote the key.
+    const cut = proxy.cutOn(/COMMIT;/, 2_000, { passOn: true, afterOnSameConnection: /INSERT INTO "idempotency_keys"/ });
+    const res = await send();
+    await cut;
+    expect(res.status).toBe(503);
+    expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
+    expect(res.body.error.message).toMatch(/may be saved or not/);
+    // The COMMIT ran: the plan and its alert are there.
+    expect(await countOf(product)).toEqual({ sprays: 1, alerts: 1 });
+
+    await eventually(async () => (await health()).status === 200, 15_000, 500);
+    const again = await send();
+    expect(again.status).toBe(201);
+    expect(again.headers['idempotent-replayed']).toBe('true');
+    expect(again.body.spray.productName).toBe(product);
+    expect(await countOf(product)).toEqual({ sprays: 1, alerts: 1 });
+  }, 120_000);
+
+  it('keeps serving when the database goes just as a finished job is marked done', async () => {
+    await eventually(async () => (await health()).status === 200, 15_000, 500);
+    // The save's alert publication and e-mails are jobs; the first one marked done loses its connection.
+    const logged = server.output().length;
+    const cut = proxy.cutOn(/SET completed_on = now\(\)/, 1_000);
+    const saved = await withSession(server.baseUrl, grower).post('/api/sprays').send(world.conflictingSpray(2, 'Marrowdeep 2SC'));
+    expect([201, 503]).toContain(saved.status);
+    await cut;
+    await eventually(async () => (await health()).status === 200, 15_000, 500);
+    expect(server.child.exitCode).toBeNull();
+    expect(server.output().slice(logged)).toMatch(/database connection lost outside a request/);
+  }, 60_000);
 });

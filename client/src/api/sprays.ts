@@ -7,7 +7,8 @@ export const spraysApi = {
   list: (state?: SprayState) => http.get<{ sprays: SprayDto[] }>('/sprays', { query: { state } }),
   get: (id: string) => http.get<SprayWithCheck>(`/sprays/${id}`),
   check: (body: SprayInput) => http.post<{ check: SprayCheckResult }>('/sprays/check', body),
-  create: (body: SprayInput) => http.post<SprayWithCheck>('/sprays', body),
+  /** `key`: the Idempotency-Key, so the same plan sent again (after a lost answer) is kept once. */
+  create: (body: SprayInput, key: string) => http.post<SprayWithCheck>('/sprays', body, { headers: { 'Idempotency-Key': key } }),
   update: (id: string, body: SprayUpdate) => http.patch<SprayWithCheck>(`/sprays/${id}`, body),
   apply: (id: string, body: SprayApply) => http.post<SprayWithCheck>(`/sprays/${id}/apply`, body),
   cancel: (id: string) => http.post<SprayWithCheck>(`/sprays/${id}/cancel`),

@@ -12,6 +12,7 @@
 import { ref } from 'vue';
 import { ApiError } from '@/api/http';
 import { fieldRecordsApi } from '@/api/field-records';
+import { newIdempotencyKey } from '@/api/idempotency-key';
 import { messageOf } from '@/api/error-messages';
 import type { PlacementDto } from '@shared/schemas/placements';
 import { fieldDb, type FieldRecord } from './field-db';
@@ -27,19 +28,13 @@ let currentUserId: () => string | null = () => null;
 let running: Promise<void> | null = null;
 let retryTimer: ReturnType<typeof setTimeout> | null = null;
 
-/** A random key that also works where crypto.randomUUID is missing (plain http on a LAN). */
-function newKey(): string {
-  const bytes = crypto.getRandomValues(new Uint8Array(16));
-  return Array.from(bytes, (b) => b.toString(16).padStart(2, '0')).join('');
-}
-
 export type NewFieldRecord = Omit<FieldRecord, 'seq' | 'key' | 'state' | 'attempts' | 'error' | 'sentAt'>;
 
 export async function addFieldRecord(record: NewFieldRecord): Promise<void> {
   // Plain data only: Vue's reactive proxies cannot be stored in IndexedDB; the photo stays a Blob.
   const { photo, ...fields } = record;
   const plain = JSON.parse(JSON.stringify(fields)) as Omit<NewFieldRecord, 'photo'>;
-  await fieldDb.records.add({ ...plain, ...(photo ? { photo } : {}), key: newKey(), state: 'waiting', attempts: 0, error: null, sentAt: null });
+  await fieldDb.records.add({ ...plain, ...(photo ? { photo } : {}), key: newIdempotencyKey(), state: 'waiting', attempts: 0, error: null, sentAt: null });
   askBackgroundSync();
   void sendWaiting();
 }

@@ -1,7 +1,9 @@
 // Recognises a lost or refused database connection (Sequelize's connection errors, or the
 // pg driver's own when a connection drops mid-query), so the error middleware can answer
 // 503 with a retry hint instead of a 500. The transaction in flight is rolled back by
-// PostgreSQL when its connection goes, so nothing half-written stays.
+// PostgreSQL when its connection goes, so nothing half-written stays. A connection lost
+// while its COMMIT was on the way leaves the change saved or not, and the server cannot
+// tell which: a save that knows it got that far says so (`mayHaveBeenSaved`).
 import { AppError } from './create-error.js';
 
 const connectionCodes = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', '57P01', '57P02', '57P03', '08000', '08003', '08006']);
@@ -22,4 +24,9 @@ export function isDatabaseUnavailable(err: unknown): boolean {
 
 export function databaseUnavailable(): AppError {
   return new AppError('unavailable', `The database cannot be reached right now, so nothing was saved. Please try again in ${databaseRetryAfterSeconds} seconds.`, 503);
+}
+
+/** The 503 of a save whose connection went during its COMMIT: it may be saved. `retry` says how to send it again safely. */
+export function mayHaveBeenSaved(what: string, retry: string): AppError {
+  return new AppError('unavailable', `The database stopped answering as ${what} was being saved, so it may be saved or not. ${retry}`, 503);
 }

@@ -1,5 +1,6 @@
-// A request key sent by a client (the phone's outbox) and the first answer given to it,
-// so a repeat of the same request gets that answer back and changes nothing.
+// A request key sent by a client (the phone's outbox, the spray form) and the first answer
+// given to it, so a repeat of the same request gets that answer back and changes nothing
+// (middleware/idempotency-key.ts).
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 
 export class IdempotencyKey extends Model<InferAttributes<IdempotencyKey>, InferCreationAttributes<IdempotencyKey>> {

@@ -4,26 +4,18 @@
 // and every repeat gets that same answer back and changes nothing. A repeat that arrives
 // while the first is still running waits for its answer. A key reused for a different
 // request is refused. Server errors (5xx) release the key so the record can be sent again.
-import { createHash } from 'node:crypto';
 import type { RequestHandler, Response } from 'express';
 import { UniqueConstraintError } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import { currentUser } from '../../middleware/authenticate.js';
+import { keyUsedElsewhere, readIdempotencyKey, requestHash } from '../../middleware/idempotency-key.js';
 import { createError } from '../../errors/create-error.js';
 import type { IdempotencyKey } from '../../db/models/idempotency-key.model.js';
 
-export const idempotencyHeader = 'Idempotency-Key';
-const keyPattern = /^[A-Za-z0-9_.:-]{8,200}$/;
 /** How long a claimed key without an answer is waited for before it is taken as abandoned. */
 const abandonedAfterMs = 2 * 60_000;
 const waitForFirstMs = 20_000;
 const pollMs = 100;
-
-function requestHash(method: string, path: string, body: unknown, file: Express.Multer.File | undefined): string {
-  const hash = createHash('sha256').update(`${method} ${path}\n`).update(JSON.stringify(body ?? null));
-  if (file) hash.update('\n').update(file.buffer);
-  return hash.digest('hex');
-}
 
 function replay(res: Response, row: IdempotencyKey) {
   res.status(row.responseStatus!).set('Idempotent-Replayed', 'true').json(row.responseBody);
@@ -47,7 +39,7 @@ export function idempotent(ctx: AppContext): RequestHandler {
       const row = await IdempotencyKey.findOne({ where: { userId, key } });
       if (!row) return claim(userId, key, method, path, hash); // released after a server error
       if (row.requestHash !== hash) {
-        throw createError('validation_failed', 'This Idempotency-Key was already used for a different request.', 422, { [idempotencyHeader]: 'was already used for a different request' });
+        throw keyUsedElsewhere();
       }
       if (row.completedAt) return row;
       if (Date.now() - row.startedAt.getTime() > abandonedAfterMs) {
@@ -60,11 +52,8 @@ export function idempotent(ctx: AppContext): RequestHandler {
   }
 
   return async (req, res, next) => {
-    const key = req.get(idempotencyHeader);
+    const key = readIdempotencyKey(req);
     if (key === undefined) return next();
-    if (!keyPattern.test(key)) {
-      throw createError('validation_failed', 'Please check: Idempotency-Key.', 400, { [idempotencyHeader]: 'must be 8 to 200 letters, digits or - _ . :' });
-    }
     const userId = currentUser(req).id;
     const path = req.originalUrl.split('?')[0];
     const hash = requestHash(req.method, path, req.body, req.file);

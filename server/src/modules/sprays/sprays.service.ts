@@ -4,7 +4,8 @@
 // re-reads after the commit, so a placement changed while the save ran is not missed). The
 // plan's map (its blocks and buffer) is read for the answer after the commit.
 // Every query is scoped to the user's farm.
-import { Op, type Transaction } from 'sequelize';
+import { randomUUID } from 'node:crypto';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type { AuthUser } from '../auth/auth-user.js';
 import type { SprayPlan } from '../../db/models/spray-plan.model.js';
@@ -20,6 +21,12 @@ import { blocksOfSprays, bufferArea } from './sprays.queries.js';
 import { labelOf } from '../../../../shared/labels/label-set.js';
 import { sprayStateSet } from '../../../../shared/labels/sprays.js';
 import { pleaseCheck } from '../../../../shared/labels/fields.js';
+import { keyUsedElsewhere } from '../../middleware/idempotency-key.js';
+import { databaseRetryAfterSeconds, isDatabaseUnavailable, mayHaveBeenSaved } from '../../errors/database-unavailable.js';
+
+/** A new plan sent under an Idempotency-Key: the key and the hash of the request it names. */
+export interface SaveOnce { key: string; requestHash: string }
+const createPath = '/api/sprays';
 
 type Window = SprayPlan['plannedWindow'];
 const windowOf = (from: Date, to: Date): Window => [{ value: from, inclusive: true }, { value: to, inclusive: false }];
@@ -35,7 +42,7 @@ function farmOf(user: AuthUser): string {
 }
 
 export function createSpraysService(ctx: AppContext) {
-  const { SprayPlan, SprayPlanBlock, Block, Organization, Alert } = ctx.models;
+  const { SprayPlan, SprayPlanBlock, Block, Organization, Alert, IdempotencyKey } = ctx.models;
 
   const dtoOf = (p: SprayPlan, blocks: SprayDto['blocks'], openAlerts: number): SprayDto => ({
     id: p.id, farmId: p.farmId, state: p.state, startsAt: p.plannedWindow[0].value.toISOString(), endsAt: p.plannedWindow[1].value.toISOString(),
@@ -80,16 +87,24 @@ export function createSpraysService(ctx: AppContext) {
    * alert left open is one of the check's conflicts.
    */
   async function save(work: (t: Transaction) => Promise<Saved>): Promise<SprayWithCheck> {
+    let committing = false;
     const { plan, check } = await ctx.sequelize.transaction(async (transaction) => {
       const saved = await work(transaction);
       await sprayChanged(ctx, transaction, saved.plan.id);
-      return { plan: saved.plan, check: (await recheckSprayIn(ctx, transaction, saved.plan.id, saved.justCreated)).check! };
+      const result = { plan: saved.plan, check: (await recheckSprayIn(ctx, transaction, saved.plan.id, saved.justCreated)).check! };
+      committing = true;
+      return result;
+    }).catch((err: unknown) => {
+      if (committing && isDatabaseUnavailable(err)) {
+        throw mayHaveBeenSaved('the spray plan', `Please try again in ${databaseRetryAfterSeconds} seconds: the spray form sends the same plan again and it is kept once (look at the spray list first if you saved it elsewhere).`);
+      }
+      throw err;
     });
     const [blocks, buffer] = await Promise.all([blocksOfSprays(ctx.sequelize, [plan.id]), bufferArea(ctx.sequelize, plan.id)]);
     return { spray: dtoOf(plan, blocks.get(plan.id) ?? [], check.conflicts.length), check: publicCheck(check), buffer: mapOf(buffer) };
   }
 
-  return {
+  const service = {
     async list(user: AuthUser, state?: SprayState): Promise<SprayDto[]> {
       const farmId = farmOf(user);
       const plans = await SprayPlan.findAll({ where: { farmId, ...(state ? { state } : {}) }, order: [['plannedWindow', 'DESC']] });
@@ -119,14 +134,40 @@ export function createSpraysService(ctx: AppContext) {
       return publicCheck(check);
     },
 
-    create(user: AuthUser, input: SprayInput): Promise<SprayWithCheck> {
+    /**
+     * A new plan. Sent under a key (`once`), the key is written first in the plan's own
+     * transaction, so the plan exists exactly when its key does: the same request sent
+     * again (the answer was lost, the database dropped at the commit) waits for the first
+     * to end, then gets that plan as it is now (`replayed`) and changes nothing; a key
+     * used for a different request is a 422.
+     */
+    async create(user: AuthUser, input: SprayInput, once?: SaveOnce): Promise<SprayWithCheck & { replayed?: true }> {
       const farmId = farmOf(user);
-      return save(async (transaction) => {
+      const planId = randomUUID();
+      try {
+        return await save(async (transaction) => {
+          if (once) {
+            await IdempotencyKey.create({
+              userId: user.id, key: once.key, method: 'POST', path: createPath, requestHash: once.requestHash,
+              responseStatus: 201, responseBody: { sprayId: planId } as object, completedAt: ctx.now(),
+            }, { transaction });
+          }
+          return createPlan(transaction);
+        });
+      } catch (err) {
+        if (!once || !(err instanceof UniqueConstraintError)) throw err;
+        const first = await IdempotencyKey.findOne({ where: { userId: user.id, key: once.key } });
+        if (!first) throw err;
+        if (first.path !== createPath || first.requestHash !== once.requestHash) throw keyUsedElsewhere();
+        return { ...(await service.get(user, (first.responseBody as { sprayId: string }).sprayId)), replayed: true };
+      }
+
+      async function createPlan(transaction: Transaction): Promise<Saved> {
         const blockIds = await requireOwnBlocks(farmId, input.blockIds, transaction);
         const from = new Date(input.startsAt);
         const to = new Date(input.endsAt);
         const plan = await SprayPlan.create({
-          farmId, plannedWindow: windowOf(from, to), exposureWindow: windowOf(from, exposureEnd(to, input)), appliedAt: null,
+          id: planId, farmId, plannedWindow: windowOf(from, to), exposureWindow: windowOf(from, exposureEnd(to, input)), appliedAt: null,
           productName: input.productName, epaRegNo: input.epaRegNo, activeIngredients: input.activeIngredients, ld50UgPerBee: input.ld50UgPerBee,
           rt25Hours: input.rt25Hours, targetPest: input.targetPest, applicatorName: input.applicatorName, notes: input.notes,
           noticedAt: ctx.now(), createdBy: user.id,
@@ -134,7 +175,7 @@ export function createSpraysService(ctx: AppContext) {
         await SprayPlanBlock.bulkCreate(blockIds.map((blockId) => ({ sprayPlanId: plan.id, blockId })), { transaction });
         const farm = await Organization.findByPk(farmId, { attributes: ['id', 'name', 'timeZone', 'sprayBufferM'], transaction });
         return { plan, justCreated: storedSprayOf(plan, blockIds, farm!) };
-      });
+      }
     },
 
     update(user: AuthUser, id: string, patch: SprayUpdate): Promise<SprayWithCheck> {
@@ -191,6 +232,7 @@ export function createSpraysService(ctx: AppContext) {
       });
     },
   };
+  return service;
 }
 
 export type SpraysService = ReturnType<typeof createSpraysService>;
