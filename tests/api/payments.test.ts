@@ -146,7 +146,9 @@ describe('payments API', () => {
     const payment = (await invoiceOf(invoice.id)).payments[0];
     await grower.post(`/api/payments/${payment.id}/refunds`, { amountCents: 100 }).expect(403);
     const tooMuch = await keeper.post(`/api/payments/${payment.id}/refunds`, { amountCents: 60_001 }).expect(400);
-    expect(tooMuch.body.error.fields).toHaveProperty('amountCents');
+    // Said in money, as the form takes it, not in cents.
+    expect(tooMuch.body.error.fields).toEqual({ amountCents: 'must be at most $600.00' });
+    expect(tooMuch.body.error.message).toBe('At most $600.00 of this payment can be refunded.');
     await keeper.post(`/api/payments/${payment.id}/refunds`, { amountCents: 6_000, reason: 'One colony under strength' }).expect(202);
     const refunded = await eventually(async () => {
       const inv = await invoiceOf(invoice.id);

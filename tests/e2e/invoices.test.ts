@@ -1,15 +1,18 @@
 // In the browser: the beekeeper drafts and issues the invoice for a delivered agreement,
-// the grower pays it on the payments stand-in's test page, and both see it paid.
+// the grower pays it on the payments stand-in's test page, and both see it paid. A second
+// beekeeper corrects an issued invoice with a credit note and records a check: one for more
+// than is owed is refused in dollars, the right one pays it; the grower sees it paid.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Browser } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
 import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot } from '../support/browser.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
-import { buildBillableSeason } from '../support/builders/invoices.js';
+import { buildBillableSeason, buildInvoice } from '../support/builders/invoices.js';
 
 describe('invoices in the browser', () => {
   let t: TestApp;
   let browser: Browser;
+  let secondInvoiceId: string;
   beforeAll(async () => {
     t = await startTestApp();
     const farm = await buildOrganization({ kind: 'farm', name: 'Thistledown Orchard', billingEmail: 'books@thistledown.test' });
@@ -18,6 +21,13 @@ describe('invoices in the browser', () => {
     await buildUser({ organization: apiary, role: 'owner', email: 'keeper@copperwing.test', name: 'Basil Thorne' });
     // 12 colonies x $70.00 = $840.00, no tax; delivered now.
     await buildBillableSeason({ farm, apiary, colonies: 12, deliveredAt: new Date(), pricePerColonyCents: 7000 });
+    // The second pair: 10 colonies x $50.00 = $500.00, issued.
+    const farm2 = await buildOrganization({ kind: 'farm', name: 'Wintergreen Bench Farm' });
+    const apiary2 = await buildOrganization({ kind: 'apiary', name: 'Ashgrove Hives' });
+    await buildUser({ organization: farm2, role: 'owner', email: 'grower@wintergreen.test', name: 'Ivo Marsh' });
+    await buildUser({ organization: apiary2, role: 'owner', email: 'keeper@ashgrove.test', name: 'Tamsin Reed' });
+    const second = await buildBillableSeason({ farm: farm2, apiary: apiary2, colonies: 10, deliveredAt: new Date(), pricePerColonyCents: 5000, lon: -119.7, lat: 45.1 });
+    secondInvoiceId = (await buildInvoice({ agreement: second.agreement, apiary: apiary2, issuedAt: new Date() })).id;
     browser = await launchBrowser();
   });
   afterAll(async () => {
@@ -62,5 +72,53 @@ describe('invoices in the browser', () => {
     expect(grower.consoleErrors).toEqual([]);
     expect(keeper.externalRequests).toEqual([]);
     expect(grower.externalRequests).toEqual([]);
+  });
+
+  it('corrects an issued invoice with a credit note, refuses a check for more than is owed in dollars, and records the right one', { timeout: 120_000 }, async () => {
+    const keeper = await openWatchedPage(browser);
+    const k = keeper.page;
+    await signInThroughPage(k, t.baseUrl, 'keeper@ashgrove.test');
+    await k.goto(`${t.baseUrl}/invoices/${secondInvoiceId}`);
+    await expect.poll(() => k.getByTestId('invoice-outstanding').textContent()).toContain('$500.00');
+
+    const credit = k.getByRole('form', { name: 'Add a credit note' });
+    await credit.getByLabel('Amount (USD)').fill('50');
+    await credit.getByLabel('What it corrects').fill('One colony arrived a week late');
+    await credit.getByRole('button', { name: 'Add credit note' }).click();
+    await expect.poll(() => k.getByTestId('invoice-outstanding').textContent()).toContain('$450.00');
+    expect(await k.getByText(/CN-\d{5}/).first().isVisible()).toBe(true);
+
+    // A check for the whole $500.00, written before the credit note was known: refused, in dollars.
+    const payment = k.getByRole('form', { name: 'Record a check or bank transfer' });
+    await payment.locator('#payment-method').click();
+    await k.getByRole('option', { name: 'Check' }).click();
+    const amount = payment.getByLabel('Amount (USD)');
+    await amount.fill('500');
+    await payment.getByLabel('Reference (check number, transfer id)').fill('Check 2231');
+    await payment.getByRole('button', { name: 'Record payment' }).click();
+    await expect.poll(() => payment.locator('#payment-amount-error').textContent()).toContain('must be at most $450.00');
+    expect(await k.getByTestId('invoice-outstanding').textContent()).toContain('$450.00');
+
+    await amount.fill('450');
+    await payment.getByRole('button', { name: 'Record payment' }).click();
+    await expect.poll(() => k.getByTestId('invoice-outstanding').textContent()).toContain('$0.00');
+    await expect.poll(() => k.locator('.pp-invoice-status').first().textContent()).toBe('Paid');
+    await saveScreenshot(k, 'invoices-credit-note-check');
+
+    const grower = await openWatchedPage(browser, { width: 360, height: 780 });
+    const g = grower.page;
+    await signInThroughPage(g, t.baseUrl, 'grower@wintergreen.test');
+    await g.goto(`${t.baseUrl}/invoices/${secondInvoiceId}`);
+    await expect.poll(() => g.locator('.pp-invoice-status').first().textContent()).toBe('Paid');
+    expect(await g.getByTestId('invoice-outstanding').textContent()).toContain('$0.00');
+    expect(await g.getByText(/CN-\d{5}/).first().isVisible()).toBe(true);
+    // The grower neither corrects nor records payments.
+    expect(await g.getByRole('button', { name: 'Add credit note' }).count()).toBe(0);
+    expect(await g.getByRole('button', { name: 'Record payment' }).count()).toBe(0);
+
+    // The refused check is the beekeeper's one console error (the browser logs the 400).
+    expect(keeper.consoleErrors).toEqual(['Failed to load resource: the server responded with a status of 400 (Bad Request)']);
+    expect(grower.consoleErrors).toEqual([]);
+    for (const watched of [keeper, grower]) expect(watched.externalRequests).toEqual([]);
   });
 });

@@ -1,6 +1,7 @@
 // Invoices from agreements: draft from the confirmed placements (priced by
 // shared/domain/invoice-pricing), review, issue with a gapless number, void while nothing
 // is paid, correct by credit note. Issued invoices are never edited.
+import { formatMoney } from '../../../../shared/domain/money.js';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
 import type {
@@ -140,7 +141,10 @@ export function createInvoicesService(ctx: AppContext) {
       const row = await lockOwnRow(user, id, transaction);
       if (row.lifecycle !== 'issued') throw wrongState('Only an issued invoice takes a credit note.');
       const creditable = row.total_cents - row.credited_cents;
-      if (input.amountCents > creditable) throw badRequest(`A credit note can be at most what is still invoiced (${creditable} cents).`, { amountCents: `must be at most ${creditable}` });
+      if (input.amountCents > creditable) {
+        const most = formatMoney(creditable, row.currency);
+        throw badRequest(`A credit note can be at most what is still invoiced (${most}).`, { amountCents: `must be at most ${most}` });
+      }
       const number = await takeNextNumber(ctx.models, transaction, row.apiary_id, 'credit-note');
       await CreditNote.create({ invoiceId: id, apiaryId: row.apiary_id, number, amountCents: input.amountCents, reason: input.reason, createdBy: user.id }, { transaction });
     });

@@ -2,6 +2,7 @@
 // payments service; what is paid is known only from its verified webhooks), the
 // beekeeper records cheques and bank transfers, and refunds online payments (an
 // overpayment among them).
+import { formatMoney } from '../../../../shared/domain/money.js';
 import { DateTime } from 'luxon';
 import type { Transaction } from 'sequelize';
 import type { AppContext } from '../../context.js';
@@ -102,7 +103,10 @@ export function createPaymentsService(ctx: AppContext) {
       if (!row) throw notFound('That invoice');
       if (row.lifecycle !== 'issued') throw wrongState('Payments are recorded only on issued invoices.');
       const outstanding = row.total_cents - row.credited_cents - row.paid_cents;
-      if (input.amountCents > outstanding) throw badRequest(`The payment is more than is outstanding (${outstanding} cents).`, { amountCents: `must be at most ${outstanding}` });
+      if (input.amountCents > outstanding) {
+        const most = formatMoney(Math.max(0, outstanding), row.currency);
+        throw badRequest(`The payment is more than is outstanding (${most}): record at most that, and return the rest to the grower.`, { amountCents: `must be at most ${most}` });
+      }
       const now = ctx.now();
       if (input.receivedOn > DateTime.fromJSDate(now, { zone: row.time_zone }).toISODate()!) {
         throw badRequest('A payment cannot be received in the future.', { receivedOn: 'must not be in the future' });
@@ -131,7 +135,10 @@ export function createPaymentsService(ctx: AppContext) {
     const providerPaymentId = payment.providerPaymentId;
     const refunded = (await Refund.sum('amountCents', { where: { providerPaymentId, state: ['pending', 'succeeded'] } })) ?? 0;
     const refundable = payment.amountCents - refunded;
-    if (input.amountCents > refundable) throw badRequest(`At most ${refundable} cents of this payment can be refunded.`, { amountCents: `must be at most ${refundable}` });
+    if (input.amountCents > refundable) {
+      const most = formatMoney(refundable, payment.currency);
+      throw badRequest(`At most ${most} of this payment can be refunded.`, { amountCents: `must be at most ${most}` });
+    }
     let refundId: string;
     try {
       const created = await stripe().refunds.create({ payment_intent: providerPaymentId, amount: input.amountCents, metadata: { invoice_id: payment.invoiceId } });
