@@ -7,7 +7,8 @@ export type RequestState = (typeof requestStates)[number];
 
 const optionalText = (max: number) => z.string().trim().max(max, `is at most ${max} characters`).nullable().optional();
 const cents = z.int('must be rounded to the cent').min(0, 'must be zero or more').max(100_000_000, 'is too large');
-const basisPoints = (max: number) => z.int('must be whole basis points').min(0, 'must be zero or more').max(max, `is at most ${max}`);
+// Stored in basis points (1/100 of a percent); a person reads and types percentages.
+const basisPoints = (max: number) => z.int('must be a percentage with at most two decimals').min(0, 'must be zero or more').max(max, `is at most ${max / 100}%`);
 
 export const dropSiteInput = z.object({
   blockId: idSchema,

@@ -55,6 +55,10 @@ describe('/api/requests', () => {
       const price = await grower.post('/api/requests', { ...requestPayload(m.block.id, {}, m), pricePerColonyCents: 12.5 });
       expect(price.status).toBe(400);
       expect(price.body.error.fields).toHaveProperty('pricePerColonyCents');
+      // Shares are stored in basis points but said as the percentages the form takes.
+      const deposit = await grower.post('/api/requests', { ...requestPayload(m.block.id, {}, m), depositShareBp: 10_001, lateInterestBpPerMonth: 12.5 });
+      expect(deposit.status).toBe(400);
+      expect(deposit.body.error.fields).toMatchObject({ depositShareBp: 'is at most 100%', lateInterestBpPerMonth: 'must be a percentage with at most two decimals' });
     });
 
     it('refuses a block of another farm with 400 on blocks.0.blockId', async () => {
