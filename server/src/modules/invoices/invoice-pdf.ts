@@ -5,6 +5,7 @@ import { createRequire } from 'node:module';
 import { DateTime } from 'luxon';
 import type { InvoiceDto } from '../../../../shared/schemas/invoices.js';
 import { formatMoney } from '../../../../shared/domain/money.js';
+import { invoiceTotals } from '../../../../shared/domain/invoice-totals.js';
 
 const require = createRequire(import.meta.url);
 const fonts = {
@@ -54,13 +55,10 @@ export function renderInvoicePdf(invoice: InvoiceDto, balanceDueDays?: number): 
       doc.y = Math.max(after, doc.y);
     }
     doc.moveDown();
-    const totals: Array<[string, number]> = [['Subtotal', invoice.subtotalCents], [`Tax (${invoice.taxRateBp / 100}%)`, invoice.taxCents], ['Total', invoice.totalCents]];
-    for (const note of invoice.creditNotes) totals.push([`Credit note ${note.number}`, -note.amountCents]);
-    totals.push(['Paid', -invoice.paidCents], ['Amount due', invoice.outstandingCents]);
     doc.fontSize(11);
-    for (const [label, cents] of totals) {
+    for (const { label, cents, strong } of invoiceTotals(invoice)) {
       const y = doc.y + 2;
-      doc.font(label === 'Total' || label === 'Amount due' ? 'WorkSans-SemiBold' : 'WorkSans').text(label, columns.unit - 80, y).text(money(cents), columns.amount, y);
+      doc.font(strong ? 'WorkSans-SemiBold' : 'WorkSans').text(label, columns.unit - 140, y, { width: 200, lineBreak: false }).text(money(cents), columns.amount, y);
     }
     doc.moveDown(2);
     doc.font('WorkSans-SemiBold').text('Payment terms', columns.description);
