@@ -1,5 +1,5 @@
 // Background Sync with no page open, in Debian's Chromium against the production build: a
-// drop-off (and a photo) recorded without signal waits in the phone's outbox; the page is closed; when
+// drop-off (and a photo, or the strength check after it) recorded without signal waits in the phone's outbox; the page is closed; when
 // the browser fires the outbox's sync event (dispatched here through the DevTools
 // protocol, `ServiceWorker.dispatchSyncEvent`, as the browser does once the signal
 // returns) the service worker sends the record itself and marks it as the page's outbox
@@ -34,7 +34,7 @@ describe('field records sent by the service worker under Background Sync', () =>
   let signal: TcpProxy;
   let baseUrl: string;
   let browser: Browser;
-  const placements: { sent: string; signedOut: string; refused: string } = { sent: '', signedOut: '', refused: '' };
+  const placements: { sent: string; signedOut: string; refused: string; checked: string } = { sent: '', signedOut: '', refused: '', checked: '' };
   const watched: WatchedPage[] = [];
 
   beforeAll(async () => {
@@ -44,7 +44,7 @@ describe('field records sent by the service worker under Background Sync', () =>
     const world = { today: new Date(), extra: {} } as SeedWorld;
     await seedAccounts(world);
     const now = Date.now();
-    for (const name of ['sent', 'signedOut', 'refused'] as const) {
+    for (const name of ['sent', 'signedOut', 'refused', 'checked'] as const) {
       const season = await buildSignedSeason({
         farm: world.organizations.farm, apiary: world.organizations.apiary, colonies: 16, delivered: false, minFramesOfBees: 6,
         onSite: { from: new Date(now + 86_400_000), to: new Date(now + 21 * 86_400_000) },
@@ -62,8 +62,11 @@ describe('field records sent by the service worker under Background Sync', () =>
 
   const rows = <T extends object>(sql: string, replacements: Record<string, unknown>) => t.context.sequelize.query<T>(sql, { replacements, type: QueryTypes.SELECT });
 
-  /** Signs the crew member in, records a drop-off (and a photo, if asked) at the placement without signal, then closes the page. */
-  async function dropOffOfflineAndClose(placementId: string, colonies: number, options: { photo?: boolean } = {}): Promise<BrowserContext> {
+  /**
+   * Signs the crew member in, records a drop-off (and a photo, or a strength check after it,
+   * if asked) at the placement without signal, then closes the page.
+   */
+  async function dropOffOfflineAndClose(placementId: string, colonies: number, options: { photo?: boolean; framesOfBees?: number[] } = {}): Promise<BrowserContext> {
     const crew = await openWatchedPage(browser, { width: 412, height: 915, serviceWorkers: 'allow' });
     watched.push(crew);
     const { page, context } = crew;
@@ -81,10 +84,18 @@ describe('field records sent by the service worker under Background Sync', () =>
     }
     await page.locator('#delivered-count').fill(String(colonies));
     await page.getByRole('button', { name: 'Mark dropped off' }).click();
-    await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe(options.photo ? '2 records waiting to send' : '1 record waiting to send');
+    if (options.framesOfBees) {
+      // Offline, the colonies count as on site on this phone: the strength check comes next.
+      await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe('1 record waiting to send');
+      for (const [i, frames] of options.framesOfBees.entries()) await page.locator(`#frames-${i}`).fill(String(frames));
+      await page.locator(`#frames-${options.framesOfBees.length - 1}`).blur();
+      await page.locator('form:has(#frames-0) button[type="submit"]').click();
+    }
+    const records = options.photo || options.framesOfBees ? 2 : 1;
+    await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe(records === 2 ? '2 records waiting to send' : '1 record waiting to send');
     // The page may have tried a record already (a send it began just before the signal went
     // fails at once): close it only once nothing is being sent, as a phone put away would be.
-    await poll(async () => (await outboxOf(context)).map((r) => r.state)).toEqual(options.photo ? ['waiting', 'waiting'] : ['waiting']);
+    await poll(async () => (await outboxOf(context)).map((r) => r.state)).toEqual(Array(records).fill('waiting'));
     expect(crew.externalRequests).toEqual([]);
     await page.close();
     return context;
@@ -186,6 +197,23 @@ describe('field records sent by the service worker under Background Sync', () =>
     await blank.goto(`${baseUrl}/placements/${id}`);
     await poll(() => blank.getByTestId('outbox-waiting').textContent()).toBe('Everything recorded here is sent');
     expect(await blank.locator('.pp-outbox-item[data-state="sent"]').count()).toBe(2);
+    await blank.close();
+  });
+
+  it('sends a drop-off and then its strength check with no page open, in the order recorded', async () => {
+    const id = placements.checked;
+    // 16 colonies: open at least 2 (10%, rounded up).
+    const context = await dropOffOfflineAndClose(id, 16, { framesOfBees: [7, 8.5] });
+    const waiting = await outboxOf(context);
+    expect(waiting.map((r) => r.kind)).toEqual(['delivery', 'strength-check']);
+
+    const from = signal.httpRequests().length;
+    await signalReturns(context);
+    const blank = await syncUntil(context, (records) => records.every((r) => r.state === 'sent'));
+    expect(requestsSince(from).filter((r) => r.startsWith('POST'))).toEqual([`POST /api/placements/${id}/delivery`, `POST /api/placements/${id}/strength-checks`]);
+    expect(await outboxOf(context)).toMatchObject(waiting.map((r) => ({ key: r.key, state: 'sent', attempts: r.attempts + 1, error: null })));
+    expect(await rows('SELECT colonies_in_group, frames_of_bees FROM strength_checks WHERE placement_id = :id', { id })).toEqual([{ colonies_in_group: 16, frames_of_bees: [7, 8.5] }]);
+    expect((await rows<{ state: string }>('SELECT state FROM placements WHERE id = :id', { id }))[0].state).toBe('delivered');
     await blank.close();
   });
 
