@@ -2,9 +2,10 @@
 // counters): only from a feature's `<feature>.queries.ts`, always with bind parameters
 // ($1 / $name) or named replacements (:name), never with values written into the text.
 // Inside a transaction pass it, so the query runs on that transaction's connection.
-// A hot statement may be prepared once per connection (queryPrepared).
+// A hot statement may be prepared once per connection (queryPrepared; for a library's own
+// statements, preparingPgPool).
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import type { ClientBase } from 'pg';
+import type { ClientBase, Pool } from 'pg';
 import { createHash } from 'node:crypto';
 
 export interface QueryOptions {
@@ -88,3 +89,18 @@ export async function queryPrepared<T extends object>(sequelize: Sequelize, stat
 }
 
 type PgConnection = Pick<ClientBase, 'query'>;
+
+/**
+ * A pg pool for a library that sends its own few statements as text (the session store):
+ * each distinct text is sent as a named statement, so it is prepared once per connection
+ * rather than planned on every call. Only `query(text, values)` is offered.
+ */
+export function preparingPgPool(pool: Pool): Pool {
+  const names = new Map<string, string>();
+  const nameOf = (text: string) => {
+    let name = names.get(text);
+    if (!name) names.set(text, (name = `lib-${createHash('sha1').update(text).digest('hex').slice(0, 16)}`));
+    return name;
+  };
+  return { query: (text: string, values?: unknown[]) => pool.query({ name: nameOf(text), text, values }) } as unknown as Pool;
+}

@@ -3,12 +3,12 @@
 // session older than the absolute limit is ended whatever its activity. The stored expiry
 // is moved on at most once every few minutes per session and process, not on every
 // request: the idle limit is hours long, and a write per read was most of a read's cost.
-import { createHash } from 'node:crypto';
 import session, { type SessionData } from 'express-session';
 import connectPgSimple from 'connect-pg-simple';
 import type { RequestHandler } from 'express';
 import type pg from 'pg';
 import type { Config } from '../../config/env.js';
+import { preparingPgPool } from '../../db/query-rows.js';
 
 export const sessionCookieName = 'pp.sid';
 
@@ -41,27 +41,14 @@ function throttledTouchStore(PgStore: ReturnType<typeof connectPgSimple>) {
   };
 }
 
-/**
- * The pool as the session store sees it: each of its few statements (read, write, touch,
- * end, prune) prepared once per connection, so a session read, on every signed-in request,
- * is not planned each time.
- */
-function preparingPool(pool: pg.Pool): pg.Pool {
-  const names = new Map<string, string>();
-  const nameOf = (text: string) => {
-    let name = names.get(text);
-    if (!name) names.set(text, (name = `session-store-${createHash('sha1').update(text).digest('hex').slice(0, 12)}`));
-    return name;
-  };
-  return { query: (text: string, values?: unknown[]) => pool.query({ name: nameOf(text), text, values }) } as unknown as pg.Pool;
-}
-
 export function createSessionMiddleware(config: Config, pool: pg.Pool): RequestHandler {
   const Store = throttledTouchStore(connectPgSimple(session));
   return session({
     name: sessionCookieName,
     secret: config.session.secret,
-    store: new Store({ pool: preparingPool(pool), tableName: 'user_sessions', pruneSessionInterval: 15 * 60 }),
+    // Its few statements (read, write, touch, end, prune) are prepared once per connection, so
+    // the session read on every signed-in request is not planned each time.
+    store: new Store({ pool: preparingPgPool(pool), tableName: 'user_sessions', pruneSessionInterval: 15 * 60 }),
     resave: false,
     saveUninitialized: false,
     rolling: true,
