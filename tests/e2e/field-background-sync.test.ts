@@ -15,7 +15,7 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
-import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage, typeNumber } from '../support/browser.js';
 import { signedInClient } from '../support/api-client.js';
 import { buildSignedSeason } from '../support/builders/season.js';
 import { seedAccounts } from '../../seed/parts/accounts.seed.js';
@@ -82,12 +82,12 @@ describe('field records sent by the service worker under Background Sync', () =>
       await page.locator('#placement-photo').setInputFiles([{ name: 'pallets.png', mimeType: 'image/png', buffer: solidPng(640, 480, [82, 128, 61]) }]);
       await poll(() => page.getByTestId('pending-photo').count()).toBe(1);
     }
-    await page.locator('#delivered-count').fill(String(colonies));
+    await typeNumber(page.locator('#delivered-count'), colonies);
     await page.getByRole('button', { name: 'Mark dropped off' }).click();
     if (options.framesOfBees) {
       // Offline, the colonies count as on site on this phone: the strength check comes next.
       await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe('1 record waiting to send');
-      for (const [i, frames] of options.framesOfBees.entries()) await page.locator(`#frames-${i}`).fill(String(frames));
+      for (const [i, frames] of options.framesOfBees.entries()) await typeNumber(page.locator(`#frames-${i}`), frames);
       await page.locator(`#frames-${options.framesOfBees.length - 1}`).blur();
       await page.locator('form:has(#frames-0) button[type="submit"]').click();
     }

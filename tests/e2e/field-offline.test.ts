@@ -7,7 +7,7 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import type { Browser } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
-import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage, typeNumber } from '../support/browser.js';
 import { buildScheduledFieldPlacement } from '../support/field-placement.js';
 import { solidPng } from '../support/test-png.js';
 
@@ -72,13 +72,13 @@ describe('field pages without signal', () => {
     await poll(() => page.getByTestId('pending-photo').count()).toBe(2);
     await page.getByRole('button', { name: 'Use my position' }).click();
     await poll(() => page.getByRole('button', { name: /±12 m/ }).isVisible()).toBe(true);
-    await page.locator('#delivered-count').fill('20');
+    await typeNumber(page.locator('#delivered-count'), 20);
     await page.locator('form:has(#delivered-count) button[type="submit"]').click();
 
     // Offline, the colonies count as on site on this phone: the strength check comes next (2 of 20 opened).
     await page.locator('#frames-0').waitFor();
-    await page.locator('#frames-0').fill('7');
-    await page.locator('#frames-1').fill('8');
+    await typeNumber(page.locator('#frames-0'), 7);
+    await typeNumber(page.locator('#frames-1'), 8);
     await page.locator('#frames-1').blur();
     await page.locator('form:has(#frames-0) button[type="submit"]').click();
     await poll(() => page.getByTestId('pending-check').count()).toBe(1);

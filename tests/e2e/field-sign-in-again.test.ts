@@ -7,7 +7,7 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import type { Browser } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
-import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage, typeNumber } from '../support/browser.js';
 import { buildScheduledFieldPlacement } from '../support/field-placement.js';
 
 const poll = <T>(check: () => T | Promise<T>) => expect.poll(check, { timeout: 20_000, interval: 150 });
@@ -40,7 +40,7 @@ describe('field pages when the session ends without signal', () => {
 
     await context.setOffline(true);
     await poll(() => page.evaluate(() => navigator.onLine)).toBe(false);
-    await page.locator('#delivered-count').fill('11');
+    await typeNumber(page.locator('#delivered-count'), 11);
     await page.getByRole('button', { name: 'Mark dropped off' }).click();
     await poll(() => page.getByTestId('outbox-waiting').textContent()).toBe('1 record waiting to send');
 

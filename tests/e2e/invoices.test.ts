@@ -3,22 +3,11 @@
 // beekeeper's check for more than is owed is refused in dollars; a credit note corrects the
 // issued invoice, and a check for what is then owed pays it; the grower sees it paid.
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser, Locator } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
-import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot } from '../support/browser.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, typeNumber } from '../support/browser.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildBillableSeason, buildInvoice } from '../support/builders/invoices.js';
-
-/**
- * Types an amount into a PrimeVue InputNumber with key presses, as a person does: it takes
- * keys as they come, while a value set in one go (Playwright's fill) waits for the field to
- * lose focus and can be put back by a re-render first.
- */
-async function typeAmount(field: Locator, amount: string) {
-  await field.click();
-  await field.press('ControlOrMeta+a');
-  await field.pressSequentially(amount);
-}
 
 describe('invoices in the browser', () => {
   let t: TestApp;
@@ -97,7 +86,7 @@ describe('invoices in the browser', () => {
     await payment.locator('#payment-method').click();
     await k.getByRole('option', { name: 'Check' }).click();
     const amount = payment.getByLabel('Amount (USD)');
-    await typeAmount(amount, '600');
+    await typeNumber(amount, '600');
     await payment.getByLabel('Reference (check number, transfer id)').fill('Check 2231');
     // As the form now holds it.
     await expect.poll(() => amount.inputValue()).toBe('$600.00');
@@ -107,7 +96,7 @@ describe('invoices in the browser', () => {
     expect(await k.getByTestId('invoice-outstanding').textContent()).toContain('$500.00');
 
     const credit = k.getByRole('form', { name: 'Add a credit note' });
-    await typeAmount(credit.getByLabel('Amount (USD)'), '50');
+    await typeNumber(credit.getByLabel('Amount (USD)'), '50');
     await credit.getByLabel('What it corrects').fill('One colony arrived a week late');
     await credit.getByRole('button', { name: 'Add credit note' }).click();
     await expect.poll(() => k.getByTestId('invoice-outstanding').textContent()).toContain('$450.00');

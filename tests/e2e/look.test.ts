@@ -5,7 +5,7 @@ import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { AxeBuilder } from '@axe-core/playwright';
 import { startTestApp, type TestApp } from '../support/test-app.js';
-import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot } from '../support/browser.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, typeNumber } from '../support/browser.js';
 import { buildOrganization, buildUser } from '../support/builders/accounts.js';
 import { buildAgreement, buildBlock, buildBloomWindow, buildCommitment, buildDropSite, buildPlacement, buildRequest, buildYard } from '../support/builders/season.js';
 
@@ -138,7 +138,7 @@ describe('the look: main pages for each side', () => {
     await signInThroughPage(page, t.baseUrl, 'look-keeper@example.test');
     await visible(page, 'Colonies committed by week');
     const field = page.getByLabel('Colonies owned', { exact: true });
-    await field.fill('150');
+    await typeNumber(field, 150);
     await page.getByRole('button', { name: 'Save' }).click();
     await visible(page, 'Colony total saved');
     await expect.poll(() => page.locator('.pp-stat').first().innerText()).toContain('150');

@@ -4,7 +4,7 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Browser, Locator } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
-import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage } from '../support/browser.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage, typeNumber } from '../support/browser.js';
 import { buildMarket } from '../support/builders/requests.js';
 
 /** Waits for the page (a loaded machine may take a few seconds). */
@@ -46,7 +46,7 @@ describe('hive request to delivery in the browser', () => {
     await g.getByLabel(/North Galas/).check();
     const colonies = g.getByLabel('colonies', { exact: true });
     await poll(async () => Number(await colonies.inputValue())).toBeGreaterThanOrEqual(60);
-    await colonies.fill('60');
+    await typeNumber(colonies, 60);
     await colonies.blur();
     // The number inputs and lists are read with their hint and message (FormField's aria-describedby on the focused element).
     expect(await descriptionOf(colonies)).toMatch(/^\d+\.\d ac × 2 per acre = \d+$/);
@@ -81,7 +81,7 @@ describe('hive request to delivery in the browser', () => {
     await k.getByRole('link', { name: 'Galas at first bloom' }).click();
     await k.waitForURL(requestUrl);
     await poll(() => k.getByText('gate code shown once your agreement is confirmed by both sides').isVisible()).toBe(true);
-    await k.getByLabel(/Colonies \(up to 60 still open\)/).fill('40');
+    await typeNumber(k.getByLabel(/Colonies \(up to 60 still open\)/), 40);
     await k.getByRole('button', { name: 'Commit colonies' }).click();
     await poll(() => k.getByText(/40 colonies · Accepted/).isVisible()).toBe(true);
 

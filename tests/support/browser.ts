@@ -1,6 +1,6 @@
 // Debian's Chromium driven by playwright-core (never a downloaded browser). Every page
 // fails its test on a request for a host other than 127.0.0.1 and records console errors.
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
 import { resolve } from 'node:path';
 
@@ -60,4 +60,15 @@ export async function signInThroughPage(page: Page, baseUrl: string, email: stri
 export async function saveScreenshot(page: Page, name: string) {
   mkdirSync(screenshotDir, { recursive: true });
   await page.screenshot({ path: resolve(screenshotDir, `${name}.png`), fullPage: true });
+}
+
+/**
+ * Types a number into a PrimeVue InputNumber with key presses, as a person does: the field
+ * takes keys as they come, while a value set in one go (Playwright's fill) waits for the
+ * field to lose focus and can be put back by a re-render before that.
+ */
+export async function typeNumber(field: Locator, value: string | number) {
+  await field.click();
+  await field.press('ControlOrMeta+a');
+  await field.pressSequentially(String(value));
 }
