@@ -4,7 +4,7 @@
 import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import type { Browser, Locator } from 'playwright-core';
 import { startTestApp, type TestApp } from '../support/test-app.js';
-import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage, typeNumber } from '../support/browser.js';
+import { launchBrowser, openWatchedPage, signInThroughPage, saveScreenshot, type WatchedPage, typeNumber, watchFor } from '../support/browser.js';
 import { buildMarket } from '../support/builders/requests.js';
 
 /** Waits for the page (a loaded machine may take a few seconds). */
@@ -121,13 +121,15 @@ describe('hive request to delivery in the browser', () => {
     expect(await c.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(360); // nothing wider than the phone
     await c.getByRole('button', { name: 'Use my position' }).click();
     await poll(() => c.getByRole('button', { name: /Position taken/ }).isVisible()).toBe(true);
+    // The grower's notice stays five seconds: watched from before the click, so the steps below cannot outlast it.
+    const fieldUpdate = watchFor(g.locator('.p-toast-message', { hasText: 'Field update' }));
     await deliver.click();
     await poll(() => c.locator('[data-state="delivered"]').isVisible()).toBe(true);
     await saveScreenshot(c, 'requests-crew-delivered-360');
 
     // The grower's agreement page shows it without a reload.
     await poll(() => g.locator('[data-state="delivered"]').count()).toBe(1);
-    await poll(() => g.getByText('Field update').isVisible()).toBe(true);
+    expect(await fieldUpdate).toBe(true);
 
     // The one refusal asked for above (opened with no drop site) is the grower's only console error.
     expect(grower.consoleErrors).toEqual(['Failed to load resource: the server responded with a status of 400 (Bad Request)']);

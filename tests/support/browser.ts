@@ -57,6 +57,15 @@ export async function signInThroughPage(page: Page, baseUrl: string, email: stri
   await page.waitForURL((url) => !url.pathname.startsWith('/sign-in'));
 }
 
+/**
+ * Starts watching for a passing element (a toast that leaves after a few seconds) before
+ * the action that shows it, so a slow step in between cannot make the test miss it.
+ * Resolves true once it was seen, false if it never showed within the time.
+ */
+export function watchFor(locator: Locator, timeout = 30_000): Promise<boolean> {
+  return locator.first().waitFor({ state: 'visible', timeout }).then(() => true, () => false);
+}
+
 export async function saveScreenshot(page: Page, name: string) {
   mkdirSync(screenshotDir, { recursive: true });
   await page.screenshot({ path: resolve(screenshotDir, `${name}.png`), fullPage: true });
